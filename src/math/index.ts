@@ -1,0 +1,3 @@
+export * from './constants.js';
+export * from './numeric.js';
+export * from './random.js';
