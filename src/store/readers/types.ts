@@ -1,3 +1,5 @@
+import { InputError } from '../../errors.js';
+
 /**
  * The common shape of every catalogue file reader (CSV/TSV, FITS binary table, VOTable).
  * A reader opens the file, reads its column descriptions, and then streams rows in batches so
@@ -37,13 +39,11 @@ export interface SourceTable {
 }
 
 /** A reader failed to understand its input; message names the line/row/card and the reason. */
-export class FileFormatError extends Error {
-  readonly code = 'bad_file';
-  constructor(
-    message: string,
-    readonly where?: { line?: number; row?: number; card?: number; column?: string },
-  ) {
-    super(message);
+export class FileFormatError extends InputError {
+  readonly where?: { line?: number; row?: number; card?: number; column?: string };
+  constructor(message: string, where?: { line?: number; row?: number; card?: number; column?: string }) {
+    super('bad_file', message, where);
     this.name = 'FileFormatError';
+    this.where = where;
   }
 }
