@@ -1,0 +1,43 @@
+import type { FastifyPluginAsyncZod } from 'fastify-type-provider-zod';
+import type { ServerConfig } from '../../../config.js';
+import { galaxyTableCsv } from '../../../format/galaxy-csv.js';
+import { errorBody } from '../../../schemas/primitives.js';
+import { sightlineQuery, sightlineReply, sightlineRequest } from '../../../schemas/sightline.js';
+import { batchRoute } from './batch.js';
+import { checkDrawLimit } from './draw-limit.js';
+
+/** POST /v1/sightlines (one sightline) and POST /v1/sightlines/batch (NDJSON in, NDJSON out). */
+export const sightlineRoutes: FastifyPluginAsyncZod<{ config: ServerConfig }> = async (app, { config }) => {
+  app.post(
+    '/v1/sightlines',
+    {
+      config: { access: 'read' },
+      schema: {
+        tags: ['sightlines'],
+        summary: 'Foreground haloes of one burst sightline and their DM with Monte Carlo uncertainties',
+        description:
+          'Model-dependent estimate: results depend on the SHMR, gas profile, f_hot and extent chosen ' +
+          '(echoed in `model`) and are valid only within the published ranges of those relations; ' +
+          'see `warnings` and each galaxy’s `flags`. `?format=csv` returns the galaxy table only.',
+        querystring: sightlineQuery,
+        body: sightlineRequest,
+        response: { 200: sightlineReply, 400: errorBody, 401: errorBody, 404: errorBody, 413: errorBody },
+      },
+    },
+    async (request, reply) => {
+      checkDrawLimit(request.body.model?.draws, config.maxDraws, 'body.model.draws');
+      const result = (await app.services.sightlines.run(request.body)) as Record<string, unknown>;
+      if (request.query.format === 'csv') {
+        const galaxies = (result.galaxies ?? []) as Record<string, unknown>[];
+        return reply
+          .type('text/csv; charset=utf-8')
+          .header('content-disposition', 'attachment; filename="sightline-galaxies.csv"')
+          .serializer((payload: unknown) => payload as string)
+          .send(galaxyTableCsv(galaxies) as never);
+      }
+      return reply.send(result as never);
+    },
+  );
+
+  await app.register(batchRoute, { config });
+};
