@@ -1,0 +1,69 @@
+import { createCosmology } from '../cosmology/index.js';
+import { dmRestExact } from '../dm/line-integral.js';
+import { createGasProfile } from '../gas/index.js';
+import {
+  concentrationMass,
+  convertHaloMass,
+  type HaloCosmology,
+  invertShmrExact,
+  type MassDefinition,
+  overdensityCrit,
+  stellarHaloRelation,
+} from '../halo/index.js';
+import type { Model } from '../model/index.js';
+import type { HaloKit } from './kit.js';
+
+/**
+ * The real kit for a parsed model: cosmology from src/cosmology, SHMR / concentration / NFW
+ * conversion from src/halo, gas profile from src/gas and the line-of-sight integral from src/dm.
+ * Build it once per model and reuse it across sightlines (it holds no per-sightline state).
+ */
+export function createHaloKit(model: Model): HaloKit {
+  const cosmo = createCosmology(model.cosmology);
+  const haloCosmo: HaloCosmology = cosmo;
+  const def = model.mass_definition;
+  const rel = stellarHaloRelation(model.shmr);
+  const cRelation = model.concentration;
+  const gasOptions = {
+    fHot: model.f_hot,
+    baryonFraction: cosmo.baryonFraction,
+    muE: model.mu_e,
+    extent: model.extent,
+  };
+  const publishedCScatter = concentrationMass(cRelation, 1e12, 0, def, haloCosmo).scatterDex;
+  const cScatter =
+    model.scatter.concentration_dex === 'published' ? publishedCScatter : model.scatter.concentration_dex;
+  const shmrScatterOverride = model.scatter.shmr_dex;
+
+  const concentration = (massMsun: number, z: number) => {
+    const r = concentrationMass(cRelation, massMsun, z, def, haloCosmo);
+    return { c: r.concentration, inRange: r.inRange };
+  };
+  const toModelLogMass = (logM: number, from: MassDefinition, z: number) => {
+    if (from === def) return logM;
+    const m = 10 ** logM;
+    const c = concentrationMass(cRelation, m, z, from, haloCosmo).concentration;
+    return Math.log10(convertHaloMass(m, c, from, def, z, haloCosmo).massMsun);
+  };
+  const profile = (massMsun: number, radiusKpc: number, c: number) =>
+    createGasProfile(model.profile, { massMsun, radiusKpc, concentration: c }, gasOptions);
+
+  return {
+    model,
+    massDefinition: def,
+    baryonFraction: cosmo.baryonFraction,
+    angularDiameterDistanceKpc: (z) => cosmo.angularDiameterDistanceMpc(z) * 1e3,
+    haloDensityMsunKpc3: (z) => overdensityCrit(def, z, haloCosmo) * cosmo.criticalDensityMsunKpc3(z),
+    shmrNativeDefinition: rel.nativeDefinition,
+    shmrLogMhRange: rel.logMhRange,
+    shmrZRange: rel.zRange,
+    shmrLogMstar: (logMh, z) => rel.logMstar(logMh, z),
+    shmrInvert: (logMstar, z) => invertShmrExact(rel, logMstar, z),
+    shmrScatterDex: (z) => (shmrScatterOverride === 'published' ? rel.scatterDex(z) : shmrScatterOverride),
+    toModelLogMass,
+    concentration,
+    concentrationScatterDex: cScatter,
+    dmRestExact: (m, r, c, b) => dmRestExact(profile(m, r, c), b),
+    dmRestFast: (m, r, c, b) => dmRestExact(profile(m, r, c), b),
+  };
+}

@@ -1,0 +1,176 @@
+import { DEG } from '../math/index.js';
+import { separationRad } from '../sky/index.js';
+import { type CentralHalo, centralHalo } from './central-halo.js';
+import { resolveDuplicates } from './duplicates.js';
+import { type HaloKit, haloRadiusFromDensity } from './kit.js';
+import { searchRedshiftRange, velocityWindowDz } from './redshift-range.js';
+import type { CatalogRow, ConeSearchFn } from './types.js';
+
+/** Where to look: the burst position [deg] and the highest source redshift considered. */
+export interface SearchTarget {
+  readonly raDeg: number;
+  readonly decDeg: number;
+  /** Upper end of the source redshift (z_s + k σ_s when z_s is uncertain). */
+  readonly zSourceHi: number;
+  readonly catalogs?: readonly string[];
+}
+
+/** One redshift shell of catalogued z and the cone radius that covers every halo it may hold. */
+export interface SearchShell {
+  readonly zLo: number;
+  readonly zHi: number;
+  readonly radiusDeg: number;
+  /** True when the radius was cut to model.max_search_deg. */
+  readonly capped: boolean;
+}
+
+/** A row that passed the exact selection, with the numbers computed on the way. */
+export interface Candidate {
+  readonly row: CatalogRow;
+  readonly sepRad: number;
+  readonly halo: CentralHalo;
+  readonly zRange: { readonly zLo: number; readonly zHi: number; readonly truncated: boolean };
+}
+
+// Shell edges grow by at most ×1.6 in z and +0.1 in width, so that D_A, and with it the cone angle,
+// changes by a modest factor across a shell (design choice, no source).
+const SHELL_RATIO = 1.6;
+const SHELL_MAX_WIDTH = 0.1;
+// Radii are widened by this relative margin so round-off at the boundary never drops a row.
+const RADIUS_MARGIN = 1e-9;
+
+/** Highest catalogued z a row may have and still reach in front of, or into, the burst environment. */
+export function queryZMax(kit: HaloKit, zSourceHi: number): number {
+  const zFront = zSourceHi + velocityWindowDz(zSourceHi, kit.model.velocity_window_kms);
+  const w = kit.model.photo_z_width;
+  // A photometric row reaches down to z − w(1+z) ≤ zFront ⇔ z ≤ (zFront + w)/(1 − w).
+  return Math.max(zFront, (zFront + w) / (1 - w));
+}
+
+/** Largest angle [rad] at which a halo of at most the ceiling mass with z in [zLo, zHi] can be a candidate. */
+function maxAngleRad(kit: HaloKit, zLo: number, zHi: number): number {
+  const m = kit.model;
+  const rMax = haloRadiusFromDensity(10 ** m.log_mhalo_max, kit.haloDensityMsunKpc3(zLo));
+  // D_A(z) rises then falls (single maximum), so its minimum over an interval is at an end.
+  const dMin = Math.min(kit.angularDiameterDistanceKpc(zLo), kit.angularDiameterDistanceKpc(zHi));
+  return (m.search * rMax) / dMin;
+}
+
+/**
+ * Split catalogued redshift (z_min, zMax] into shells; each shell's cone is wide enough for the largest
+ * allowed halo (model.log_mhalo_max) at the lowest redshift any of its rows may occupy (photometric rows
+ * reach z − w(1+z)), and at the smallest D_A over the reachable interval; capped at model.max_search_deg.
+ */
+export function planShells(kit: HaloKit, zSourceHi: number): SearchShell[] {
+  const m = kit.model;
+  const zMax = queryZMax(kit, zSourceHi);
+  const w = m.photo_z_width;
+  const cap = m.max_search_deg * DEG;
+  const shells: SearchShell[] = [];
+  let lo = m.z_min;
+  while (lo < zMax) {
+    const hi = Math.min(zMax, lo * SHELL_RATIO, lo + SHELL_MAX_WIDTH);
+    const reachLo = Math.max(m.z_min, lo - w * (1 + lo));
+    const reachHi = hi + w * (1 + hi);
+    const theta = maxAngleRad(kit, reachLo, reachHi) * (1 + RADIUS_MARGIN);
+    shells.push({ zLo: lo, zHi: hi, radiusDeg: Math.min(theta, cap) / DEG, capped: theta > cap });
+    lo = hi;
+  }
+  return shells;
+}
+
+/**
+ * The exact selection rule, applied identically to rows found through the shells and in the
+ * brute-force test: z ≥ z_min; separation ≤ max_search_deg; the row's redshift interval starts below
+ * the top of the burst environment; and its impact parameter at the nearest point of that interval
+ * (smallest D_A) is within search × r_halo, with r_halo from its central halo mass at the low end of
+ * the interval (where r_halo is largest). Returns null for rows that are not candidates.
+ */
+export function selectCandidate(
+  row: CatalogRow,
+  target: SearchTarget,
+  kit: HaloKit,
+  zFrontMax: number,
+): Candidate | null {
+  const m = kit.model;
+  if (!(row.z >= m.z_min)) return null;
+  const zRange = searchRedshiftRange(row, m);
+  if (zRange.zLo > zFrontMax) return null;
+  const sepRad = separationRad(target.raDeg * DEG, target.decDeg * DEG, row.raDeg * DEG, row.decDeg * DEG);
+  if (sepRad > m.max_search_deg * DEG) return null;
+  const dMin = Math.min(
+    kit.angularDiameterDistanceKpc(zRange.zLo),
+    kit.angularDiameterDistanceKpc(zRange.zHi),
+  );
+  const bMin = sepRad * dMin;
+  const density = kit.haloDensityMsunKpc3(zRange.zLo);
+  // Cheap test with the ceiling mass first; the SHMR inversion only for rows that could pass.
+  if (bMin > m.search * haloRadiusFromDensity(10 ** m.log_mhalo_max, density)) return null;
+  const halo = centralHalo(row, kit);
+  if (!halo) return null;
+  if (bMin > m.search * haloRadiusFromDensity(10 ** halo.logMhalo, density)) return null;
+  return { row, sepRad, halo, zRange };
+}
+
+export interface SearchResult {
+  readonly candidates: Candidate[];
+  readonly shells: SearchShell[];
+  /** Distinct rows returned by the store over all shells (before duplicates and the exact selection). */
+  readonly rowsScanned: number;
+  /** Rows in the cones that had neither a stellar nor a halo mass. */
+  readonly rowsWithoutMass: number;
+  /** For a kept row, the cross-catalogue duplicates it stands for. */
+  readonly duplicates: Map<CatalogRow, CatalogRow[]>;
+}
+
+/** Query the store shell by shell and return the distinct rows (by catalogue + id) in z range. */
+export function fetchShells(
+  coneSearch: ConeSearchFn,
+  target: SearchTarget,
+  shells: readonly SearchShell[],
+): CatalogRow[] {
+  const seen = new Set<string>();
+  const out: CatalogRow[] = [];
+  for (const shell of shells) {
+    const rows = coneSearch({
+      raDeg: target.raDeg,
+      decDeg: target.decDeg,
+      radiusDeg: shell.radiusDeg,
+      catalogs: target.catalogs,
+      zMin: shell.zLo,
+      zMax: shell.zHi,
+    });
+    for (const row of rows) {
+      if (row.z < shell.zLo || row.z > shell.zHi) continue;
+      const key = `${row.catalog}\u0000${row.objectId}`;
+      if (seen.has(key)) continue;
+      seen.add(key);
+      out.push(row);
+    }
+  }
+  return out;
+}
+
+/**
+ * Candidate search: plan the shells, query the store, keep one row per physical galaxy (before the
+ * selection, so a spectroscopic redshift overrules its photometric twin), then apply selectCandidate.
+ * A duplicate whose preferred twin lies outside every shell's redshift range is not seen and cannot
+ * overrule (documented limitation).
+ */
+export function findCandidates(coneSearch: ConeSearchFn, kit: HaloKit, target: SearchTarget): SearchResult {
+  const shells = planShells(kit, target.zSourceHi);
+  const zFrontMax = target.zSourceHi + velocityWindowDz(target.zSourceHi, kit.model.velocity_window_kms);
+  const rows = fetchShells(coneSearch, target, shells);
+  const { kept, dropped } = resolveDuplicates(rows);
+  const candidates: Candidate[] = [];
+  let rowsWithoutMass = 0;
+  for (const row of kept) {
+    if (row.logMstar === null && (row.logMhalo === null || row.logMhalo === undefined)) {
+      rowsWithoutMass++;
+      continue;
+    }
+    const cand = selectCandidate(row, target, kit, zFrontMax);
+    if (cand) candidates.push(cand);
+  }
+  return { candidates, shells, rowsScanned: rows.length, rowsWithoutMass, duplicates: dropped };
+}
