@@ -53,6 +53,8 @@ const galaxy = fc.record({
   catalog: fc.constantFrom('alpha', 'beta'),
 });
 
+type GalaxyDraw = typeof galaxy extends fc.Arbitrary<infer T> ? T : never;
+
 function buildRows(target: { raDeg: number; decDeg: number }, gals: fc.infer<typeof galaxy>[]): CatalogRow[] {
   return gals.map((g, i) => {
     const [ra, dec] = offsetPoint(target.raDeg, target.decDeg, 10 ** g.logSepDeg, g.paDeg);
