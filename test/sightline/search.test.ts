@@ -55,7 +55,7 @@ const galaxy = fc.record({
 
 type GalaxyDraw = typeof galaxy extends fc.Arbitrary<infer T> ? T : never;
 
-function buildRows(target: { raDeg: number; decDeg: number }, gals: fc.infer<typeof galaxy>[]): CatalogRow[] {
+function buildRows(target: { raDeg: number; decDeg: number }, gals: GalaxyDraw[]): CatalogRow[] {
   return gals.map((g, i) => {
     const [ra, dec] = offsetPoint(target.raDeg, target.decDeg, 10 ** g.logSepDeg, g.paDeg);
     return {
