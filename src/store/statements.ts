@@ -1,0 +1,50 @@
+import type Database from 'better-sqlite3';
+import { GALAXY_COLUMNS, type GalaxySqlRow } from './galaxy-row.js';
+
+/** A catalogue as stored (snake_case columns of the catalog table). */
+export interface CatalogSqlRow {
+  catalog_id: number;
+  name: string;
+  description: string;
+  source_file: string;
+  source_sha256: string;
+  format: 'csv' | 'tsv' | 'fits' | 'votable';
+  row_count: number;
+  rows_skipped: number;
+  loaded_at: string;
+  mapping_json: string;
+  report_json: string;
+}
+
+const FROM_GALAXY = `FROM galaxy g JOIN catalog c ON c.catalog_id = g.catalog_id
+  LEFT JOIN physical_link p ON p.catalog_id = g.catalog_id AND p.object_id = g.object_id`;
+
+/** Every statement the store runs more than once, prepared when the store opens. */
+export function prepareStatements(db: Database.Database) {
+  return {
+    catalogByName: db.prepare<[string], CatalogSqlRow>('SELECT * FROM catalog WHERE name = ?'),
+    catalogs: db.prepare<[], CatalogSqlRow>('SELECT * FROM catalog ORDER BY name'),
+    deleteCatalog: db.prepare<[number]>('DELETE FROM catalog WHERE catalog_id = ?'),
+    insertCatalog: db.prepare<
+      [string, string, string, string, string, number, number, string, string, string]
+    >(`INSERT INTO catalog (name, description, source_file, source_sha256, format, row_count, rows_skipped,
+        loaded_at, mapping_json, report_json) VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?)`),
+    galaxiesInRange: db.prepare<[number, number, number, number], GalaxySqlRow>(
+      `SELECT ${GALAXY_COLUMNS} ${FROM_GALAXY} WHERE g.catalog_id = ? AND g.hpx BETWEEN ? AND ? AND g.z <= ?`,
+    ),
+    galaxiesOfCatalog: db.prepare<[number, number], GalaxySqlRow>(
+      `SELECT ${GALAXY_COLUMNS} ${FROM_GALAXY} WHERE g.catalog_id = ? AND g.z <= ?`,
+    ),
+    galaxyById: db.prepare<[number, string], GalaxySqlRow>(
+      `SELECT ${GALAXY_COLUMNS} ${FROM_GALAXY} WHERE g.catalog_id = ? AND g.object_id = ?`,
+    ),
+    zKindCounts: db.prepare<[number], { z_kind: string; n: number; estimated: number }>(
+      'SELECT z_kind, COUNT(*) AS n, SUM(mass_estimated) AS estimated FROM galaxy WHERE catalog_id = ? GROUP BY z_kind',
+    ),
+    matchCount: db.prepare<[number, number], { n: number }>(
+      'SELECT COUNT(*) AS n FROM galaxy_match WHERE catalog_a = ? OR catalog_b = ?',
+    ),
+  };
+}
+
+export type Statements = ReturnType<typeof prepareStatements>;
