@@ -148,7 +148,7 @@ export function createCumulativeTable(
         h * (s * (1 - 3 * t) * dRight[lo] + t * (3 * t - 2) * dLeft[lo + 1]);
       let next = t - f / dfdt;
       if (!(next > a && next < b)) next = 0.5 * (a + b);
-      if (Math.abs(next - t) < 1e-15) {
+      if (Math.abs(next - t) < 1e-13) {
         t = next;
         break;
       }
