@@ -122,6 +122,8 @@ export const errorHandlerPlugin = fp(
         request.log.info({ code: body.error.code, status }, 'request rejected');
       }
       if (reply.sent || reply.raw.headersSent) return;
+      // After an oversized upload the rest of the body is discarded; do not reuse the connection.
+      if (status === 413) reply.header('connection', 'close');
       return reply.code(status).type('application/json').send(body);
     });
     app.setNotFoundHandler((request, reply) => {

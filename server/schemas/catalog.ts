@@ -27,6 +27,13 @@ export const loadQuery = z.object({
     .optional()
     .describe('File format; guessed from the content when omitted'),
   map: columnMap.optional(),
+  file_name: z
+    .string()
+    .min(1)
+    .max(200)
+    .regex(/^[^/\\]+$/, 'a bare file name, without folders')
+    .optional()
+    .describe('Original file name to record with the catalogue (e.g. deep_field_spec.csv)'),
   skip_invalid: queryBoolean
     .optional()
     .describe('Skip rows that fail validation (they are counted and reported) instead of rejecting the file'),

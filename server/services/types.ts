@@ -22,6 +22,8 @@ export interface LoadRequest {
   name: string;
   body: Readable;
   format?: string;
+  /** Original file name, recorded with the catalogue (never a server path). */
+  fileName?: string;
   map?: Record<string, string>;
   skipInvalid: boolean;
   mode: LoadMode;

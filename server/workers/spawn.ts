@@ -34,8 +34,8 @@ export function spawnModuleWorker(entryUrl: URL, data: Record<string, unknown>):
   });
 }
 
-/** The URL of a sibling worker module, with the extension this file itself was loaded with. */
-export function siblingModule(name: string, base: string): URL {
-  const ext = base.endsWith('.ts') ? '.ts' : '.js';
-  return new URL(`./${name}${ext}`, base);
+/** The URL of a worker module in this folder, with the extension this file was loaded with (.ts or .js). */
+export function workerModuleUrl(name: string): URL {
+  const ext = import.meta.url.endsWith('.ts') ? '.ts' : '.js';
+  return new URL(`./${name}${ext}`, import.meta.url);
 }

@@ -87,11 +87,12 @@ export const catalogRoutes: FastifyPluginAsyncZod<{ config: ServerConfig }> = as
           { limitBytes: config.uploadLimitBytes },
         );
       }
-      const { format, map, skip_invalid, mode } = request.query;
+      const { format, map, skip_invalid, mode, file_name } = request.query;
       const report = await app.services.catalogs.load({
         name: request.params.name,
         body: request.raw,
         format,
+        fileName: file_name,
         map,
         skipInvalid: skip_invalid ?? false,
         mode,
