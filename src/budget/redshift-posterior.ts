@@ -1,5 +1,5 @@
 import { DomainError } from '../errors.js';
-import { quantileSorted } from '../math/index.js';
+import { normalQuantile, quantileSorted } from '../math/index.js';
 import { BUDGET_CAUTIONS } from './cautions.js';
 import { cosmicPdf } from './cosmic-pdf-cache.js';
 import { type RedshiftFreeInput, residualDraws } from './residuals.js';
@@ -12,8 +12,8 @@ export interface RedshiftPosteriorInput extends RedshiftFreeInput {
   residualNodes?: number;
   /** Prior on z: 'flat' (default) or 'comoving_volume' (∝ D_C² / E, no rate evolution). */
   zPrior?: 'flat' | 'comoving_volume';
-  /** Quantile nodes of the cosmic PDF per redshift (default 160). */
-  cosmicNodes?: number;
+  /** Quantile nodes of the log-normal host prior (default 160). */
+  hostNodes?: number;
 }
 
 export interface RedshiftPosterior {
@@ -67,11 +67,11 @@ function cdfCrossing(z: number[], cdf: number[], p: number): number {
 
 /**
  * Posterior of the source redshift without a measured z_s:
- *   p(z | DM_obs) ∝ π(z) ∫∫ p(R) p_Δ(Δ | z) (1+z) p_host,rest((R − ⟨DM⟩(z) Δ)(1+z)) dΔ dR,
- * with R = DM_obs − MW terms − caller-given haloes (Monte Carlo draws, entered through their quantile
- * mid-points), the Macquart PDF integrated on its quantile mid-points (the far tail beyond the last
- * node is represented by that node), a log-normal host prior in the rest frame, and a flat (default)
- * or comoving-volume prior π(z) on the grid.
+ *   p(z | DM_obs) ∝ π(z) ∫∫ p(R) p_host,rest(h) p_Δ((R − h/(1+z)) / ⟨DM⟩(z) | z) / ⟨DM⟩(z) dh dR,
+ * i.e. the density of DM_cosmic at what the other terms leave, averaged over R = DM_obs − MW terms −
+ * caller-given haloes (Monte Carlo draws, entered through their quantile mid-points) and over the
+ * log-normal rest-frame host prior (its quantile mid-points, so any prior width is resolved), with a
+ * flat (default) or comoving-volume prior π(z) on the grid.
  */
 export function redshiftPosterior(input: RedshiftPosteriorInput): RedshiftPosterior {
   const zs = gridFrom(input.zGrid);
@@ -83,9 +83,10 @@ export function redshiftPosterior(input: RedshiftPosteriorInput): RedshiftPoster
       `residualNodes must be an integer in [16, 100000], got ${nR}`,
     );
   }
-  const J = input.cosmicNodes ?? 160;
-  if (!(Number.isInteger(J) && J >= 16 && J <= 5000))
-    throw new DomainError('cosmic_nodes_invalid', `cosmicNodes must be an integer in [16, 5000], got ${J}`);
+  const J = input.hostNodes ?? 160;
+  if (!(Number.isInteger(J) && J >= 16 && J <= 5000)) {
+    throw new DomainError('host_nodes_invalid', `hostNodes must be an integer in [16, 5000], got ${J}`);
+  }
   // The residual draws enter through nR quantile mid-points of their sorted sample.
   const sorted = Float64Array.from(residual).sort();
   const R = Float64Array.from({ length: nR }, (_, k) => quantileSorted(sorted, (k + 0.5) / nR));
@@ -96,23 +97,20 @@ export function redshiftPosterior(input: RedshiftPosteriorInput): RedshiftPoster
     return (d * d) / input.cosmology.E(z);
   };
   const mean = cosmicMeanInForce(input.cosmology, model);
-  const mu = Math.log(model.host.median_pc_cm3);
-  const sig = model.host.sigma_ln;
-  const norm = 1 / (sig * Math.sqrt(2 * Math.PI));
-  const hostDensity = (x: number) => {
-    if (!(x > 0)) return 0;
-    const t = (Math.log(x) - mu) / sig;
-    return (norm / x) * Math.exp(-0.5 * t * t);
-  };
+  // Host rest-frame DMs at the quantile mid-points of the log-normal prior.
+  const host = Float64Array.from(
+    { length: J },
+    (_, j) => model.host.median_pc_cm3 * Math.exp(model.host.sigma_ln * normalQuantile((j + 0.5) / J)),
+  );
   const like = zs.map((z) => {
     const pdf = cosmicPdf(model.F, z);
     const m = mean.meanDmPcCm3(z);
     let s = 0;
     for (let j = 0; j < J; j++) {
-      const c = m * pdf.quantile((j + 0.5) / J);
-      for (let i = 0; i < nR; i++) s += hostDensity((R[i] - c) * (1 + z));
+      const hostObs = host[j] / (1 + z);
+      for (let i = 0; i < nR; i++) s += pdf.density((R[i] - hostObs) / m);
     }
-    return (prior(z) * s * (1 + z)) / (J * nR);
+    return (prior(z) * s) / (m * J * nR);
   });
   const area = like.reduce(
     (acc, v, i) => (i === 0 ? 0 : acc + 0.5 * (v + like[i - 1]) * (zs[i] - zs[i - 1])),
