@@ -138,35 +138,27 @@ function renderSummary(result) {
     </dl>`;
 }
 
+function listItem(text, className) {
+  const li = document.createElement('li');
+  li.textContent = text;
+  if (className) li.className = className;
+  return li;
+}
+
 function renderLists(result) {
-  const pri = $('priorities');
-  const items = (result.priorities ?? []).map((p) => {
-    const li = document.createElement('li');
-    const score = p.score ?? p.priority ?? p.dm_at_stake;
-    li.textContent = `${p.id}${p.catalog ? ` (${p.catalog})` : ''}${score !== undefined ? ` — ${typeof score === 'number' ? score.toFixed(2) : score}` : ''}${p.reason ? `: ${p.reason}` : ''}`;
-    return li;
-  });
-  pri.replaceChildren(
-    ...(items.length
-      ? items
-      : [
-          Object.assign(document.createElement('li'), {
-            className: 'muted',
-            textContent: 'No photometric neighbour needs a redshift.',
-          }),
-        ]),
+  const priorities = (result.priorities ?? []).map((p) =>
+    listItem(
+      `${p.id} (${p.catalog}) — z = ${fmt(p.z, 3)} ± ${fmt(p.z_err, 3)}, P(fg) = ${fmt(p.p_fg, 2)}; ` +
+        `a spectroscopic z would remove ${fmt(100 * p.var_fraction, 0)} % of the DM variance`,
+    ),
   );
-  const warn = $('warnings');
-  const warnings = (result.warnings ?? []).map((w) => {
-    const li = document.createElement('li');
-    li.textContent = typeof w === 'string' ? w : (w.message ?? JSON.stringify(w));
-    return li;
-  });
-  warn.replaceChildren(
-    ...(warnings.length
-      ? warnings
-      : [Object.assign(document.createElement('li'), { className: 'muted', textContent: 'None.' })]),
+  $('priorities').replaceChildren(
+    ...(priorities.length ? priorities : [listItem('No photometric neighbour needs a redshift.', 'muted')]),
   );
+  const warnings = (result.warnings ?? []).map((w) =>
+    listItem(typeof w === 'string' ? w : `${w.message}${w.code ? ` [${w.code}]` : ''}`),
+  );
+  $('warnings').replaceChildren(...(warnings.length ? warnings : [listItem('None.', 'muted')]));
 }
 
 /** Saves a Blob under a file name through a temporary link. */
@@ -222,7 +214,7 @@ async function submit(ev) {
     }
     renderSummary(reply);
     drawFieldChart($('field-chart'), reply, hover);
-    drawHistogram($('histogram-box'), reply.draws_dm ?? reply.totals?.draws_dm ?? [], reply.totals.dm_halos);
+    drawHistogram($('histogram-box'), reply.draws_dm ?? [], reply.totals.dm_halos);
     drawScatter($('scatter-box'), reply.galaxies, hover);
     table.setRows(reply.galaxies);
     renderLists(reply);

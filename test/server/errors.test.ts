@@ -42,7 +42,7 @@ describe('error replies', () => {
   it('z_source of zero is rejected with its own reason', async () => {
     const res = await post({ ra: 10, dec: 0, z_source: 0 });
     expect(res.statusCode).toBe(400);
-    expect(res.json().error.message).toContain('z_source must be > 0');
+    expect(res.json().error.details.issues[0].field).toBe('body.z_source');
   });
 
   it('an unknown model name names the model key', async () => {

@@ -46,7 +46,20 @@ export function recordingServices(): AppServices & { calls: string[]; closed: bo
         if (r.host_id === 'outside') throw new DomainError('outside_validity', 'z outside the model range');
         const dm = { mean: 1, p2_5: 0, p16: 0.5, p50: 1, p84: 1.5, p97_5: 2 };
         return {
-          sightline: { ra: r.ra },
+          sightline: {
+            ra: r.ra,
+            dec: 0,
+            z_source: 0.5,
+            z_source_err: 0,
+            host_id: null,
+            catalogs: null,
+            velocity_window_dz: 0.005,
+            z_foreground_max: 0.495,
+            shells: 1,
+            max_search_deg: 1,
+            rows_scanned: 1,
+            n_behind: 0,
+          },
           model: {},
           totals: { dm_halos: dm, n_candidates: 1, n_intersected: 1, draws: 10, seed: 1 },
           galaxies: [
