@@ -22,7 +22,10 @@ export function moster2013LogMstar(logMh: number, z: number): number {
   const beta = BETA10 + BETA11 * s;
   const gamma = GAMMA10 + GAMMA11 * s;
   const u = logMh - logM1;
-  return Math.log10(2 * N) + logMh - Math.log10(10 ** (-beta * u) + 10 ** (gamma * u));
+  // exp(ln10·x) instead of 10 ** x: same value to round-off, several times faster in V8.
+  return (
+    Math.log10(2 * N) + logMh - Math.log10(Math.exp(-beta * u * Math.LN10) + Math.exp(gamma * u * Math.LN10))
+  );
 }
 
 export const moster2013: StellarHaloRelation = {
