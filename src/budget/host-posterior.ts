@@ -51,7 +51,7 @@ export interface HostPosterior {
     mw_ism: Summary;
     mw_halo: Summary;
     cosmic: Summary;
-    foreground_halos: Summary;
+    halos: Summary;
   };
   /** DM_host,rest = (DM_obs − MW ISM − MW halo − cosmic − haloes)(1 + z_s), never clipped. */
   host_rest: WideSummary;
@@ -125,7 +125,7 @@ export function hostPosterior(input: HostPosteriorInput): HostPosterior {
       mw_ism: summarise(local.ism),
       mw_halo: summarise(local.mwHalo),
       cosmic: summarise(cosmic),
-      foreground_halos: summarise(local.halos),
+      halos: summarise(local.halos),
     },
     host_rest: summariseWide(hostRest),
     p_negative_host: pNeg,

@@ -24,7 +24,12 @@ export {
   Y_H,
   Y_HE,
 } from './ionisation.js';
-export { type BudgetObservation, validateObservation } from './local-draws.js';
+export {
+  type BudgetObservation,
+  drawLocalTerms,
+  type LocalDraws,
+  validateObservation,
+} from './local-draws.js';
 export {
   createMacquartMean,
   type MacquartMean,

@@ -54,7 +54,7 @@ describe('host DM posterior', () => {
     expect(full.warnings.join(' ')).toMatch(/counted twice/);
     const none = hostPosterior({ ...base, draws: 500 });
     expect(none.warnings.join(' ')).toMatch(/no foreground-halo draws/);
-    expect(none.components.foreground_halos.mean).toBe(0);
+    expect(none.components.halos.mean).toBe(0);
     expect(none.assumptions.mw_halo).toMatch(/common practice/);
   });
 
