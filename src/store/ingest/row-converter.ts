@@ -6,7 +6,12 @@ import type { Field } from './fields.js';
 import type { ColumnMapping } from './mapping.js';
 import type { ProblemLog } from './problems.js';
 import { parseSexagesimalDecDeg, parseSexagesimalRaDeg } from './sexagesimal.js';
-import { absoluteMagnitude, ESTIMATED_LOG_MSTAR_ERR_FLOOR, logMstarTaylor2011 } from './taylor2011.js';
+import {
+  absoluteMagnitude,
+  ESTIMATED_LOG_MSTAR_ERR_FLOOR,
+  logMstarTaylor2011,
+  TAYLOR2011,
+} from './taylor2011.js';
 import { angleScaleToDeg, type MassUnit } from './units.js';
 
 export type ZKind = 'spec' | 'photo';
@@ -59,31 +64,35 @@ export type StagedRow = [
   number,
 ];
 
-const Z_KINDS: Record<string, ZKind> = {
-  spec: 'spec',
-  s: 'spec',
-  spectroscopic: 'spec',
-  specz: 'spec',
-  zspec: 'spec',
-  photo: 'photo',
-  phot: 'photo',
-  p: 'photo',
-  photometric: 'photo',
-  photoz: 'photo',
-  zphot: 'photo',
-};
+const Z_KINDS = new Map<string, ZKind>(
+  Object.entries({
+    spec: 'spec',
+    s: 'spec',
+    spectroscopic: 'spec',
+    specz: 'spec',
+    zspec: 'spec',
+    photo: 'photo',
+    phot: 'photo',
+    p: 'photo',
+    photometric: 'photo',
+    photoz: 'photo',
+    zphot: 'photo',
+  }) as [string, ZKind][],
+);
 
-const MHALO_DEFS: Record<string, MhaloDef> = {
-  '200c': '200c',
-  m200c: '200c',
-  '200crit': '200c',
-  '200m': '200m',
-  m200m: '200m',
-  '200mean': '200m',
-  vir: 'vir',
-  mvir: 'vir',
-  virial: 'vir',
-};
+const MHALO_DEFS = new Map<string, MhaloDef>(
+  Object.entries({
+    '200c': '200c',
+    m200c: '200c',
+    '200crit': '200c',
+    '200m': '200m',
+    m200m: '200m',
+    '200mean': '200m',
+    vir: 'vir',
+    mvir: 'vir',
+    virial: 'vir',
+  }) as [string, MhaloDef][],
+);
 
 export interface ConverterContext {
   mapping: ColumnMapping;
@@ -102,105 +111,137 @@ export interface ConverterContext {
   };
 }
 
+/** Sentinel for "cell had a problem" (distinct from null = empty cell). */
+const BAD = Symbol('bad');
+
 /** Build the function that checks and converts one source row (null when the row has problems). */
 export function createRowConverter(ctx: ConverterContext): (row: SourceRow) => StagedRow | null {
   const { mapping, columns, positionKind, defaults, problems, counts } = ctx;
-  const ix = mapping.index;
-  const colName = (f: Field) => mapping.column[f] ?? f;
-  const raScale = angleScaleToDeg(columns[ix.ra!].unit, colName('ra'), true);
-  const decScale = angleScaleToDeg(columns[ix.dec!].unit, colName('dec'), false);
+  const at = (f: Field) => mapping.index[f] ?? -1;
+  const iId = at('id');
+  const iRa = at('ra');
+  const iDec = at('dec');
+  const iZ = at('z');
+  const iZs = at('z_spec');
+  const iZp = at('z_phot');
+  const iZe = at('z_err');
+  const iZse = at('z_spec_err');
+  const iZpe = at('z_phot_err');
+  const iKind = at('z_kind');
+  const iM = at('log_mstar');
+  const iMe = at('log_mstar_err');
+  const iG = at('g');
+  const iI = at('i');
+  const iH = at('log_mhalo');
+  const iHe = at('log_mhalo_err');
+  const iHd = at('mhalo_def');
+  const iGrp = at('group_id');
+  const names = columns.map((c) => c.name);
+  const raScale = angleScaleToDeg(columns[iRa].unit, names[iRa], true);
+  const decScale = angleScaleToDeg(columns[iDec].unit, names[iDec], false);
   const nColumns = columns.length;
   const zErrOver1pz = defaults.zErrKind === 'sigma_over_1pz';
+  const linearMass = ctx.massUnit === 'linear';
+
+  let position = 0;
+  let bad = false;
+  let values: CellValue[] = [];
+  function problem(i: number, field: string, reason: string, value?: CellValue): void {
+    bad = true;
+    problems.add({
+      position,
+      positionKind,
+      column: i >= 0 ? names[i] : field,
+      value: show(value ?? (i >= 0 ? values[i] : '')),
+      reason,
+    });
+  }
+  /** Number in column i: null if absent/empty, BAD (problem recorded) if unreadable or below min. */
+  function num(i: number, min: number): number | null | typeof BAD {
+    if (i < 0) return null;
+    const x = cellNumber(values[i]);
+    if (x === null) return null;
+    if (!Number.isFinite(x)) {
+      problem(i, '', whyNotFinite(x));
+      return BAD;
+    }
+    if (x < min) {
+      problem(i, '', `must be ≥ ${min}`);
+      return BAD;
+    }
+    return x;
+  }
+  const ok = (x: number | null | typeof BAD): number | null => (x === BAD ? null : x);
+  function angle(i: number, scale: number, isRa: boolean): number | null {
+    const raw = values[i];
+    const x = cellNumber(raw);
+    if (x === null) {
+      problem(i, '', 'is empty');
+      return null;
+    }
+    if (Number.isNaN(x) && typeof raw === 'string') {
+      const y = isRa ? parseSexagesimalRaDeg(raw) : parseSexagesimalDecDeg(raw);
+      if (Number.isNaN(y)) {
+        problem(
+          i,
+          '',
+          `is neither decimal degrees nor sexagesimal (${isRa ? "'hh:mm:ss.s'" : "'±dd:mm:ss.s'"})`,
+        );
+        return null;
+      }
+      return y;
+    }
+    if (!Number.isFinite(x)) {
+      problem(i, '', whyNotFinite(x));
+      return null;
+    }
+    return x * scale;
+  }
+  function inRange(x: number | null, i: number, lo: number, hi: number, what: string): number | null {
+    if (x !== null && (x < lo || x > hi)) {
+      problem(i, '', `${what} must be within ${lo}–${hi}`);
+      return null;
+    }
+    return x;
+  }
 
   return (row: SourceRow): StagedRow | null => {
-    const v = row.values;
-    const position = row.position;
-    let bad = false;
-    const problem = (f: Field | string, value: CellValue | undefined, reason: string) => {
-      bad = true;
-      problems.add({ position, positionKind, column: colName(f as Field), value: show(value), reason });
-    };
-    if (v.length !== nColumns) {
-      problems.add({
-        position,
-        positionKind,
-        column: '(row)',
-        value: '',
-        reason: `expected ${nColumns} fields as in the header, found ${v.length} (wrong delimiter or unquoted delimiter in a field?)`,
-      });
+    values = row.values;
+    position = row.position;
+    bad = false;
+    if (values.length !== nColumns) {
+      problem(
+        -1,
+        '(row)',
+        `expected ${nColumns} fields as in the header, found ${values.length} (wrong delimiter, or an unquoted delimiter inside a field?)`,
+        '',
+      );
       problems.badRows++;
       return null;
     }
-    const get = (f: Field): CellValue | undefined => (ix[f] === undefined ? undefined : v[ix[f]!]);
 
-    /** A finite number ≥ min (or null if empty); records a problem otherwise. */
-    const num = (f: Field, opts: { min?: number; required?: boolean } = {}): number | null => {
-      const raw = get(f);
-      const x = cellNumber(raw);
-      if (x === null) {
-        if (opts.required) problem(f, raw, 'is empty');
-        return null;
-      }
-      if (!Number.isFinite(x)) {
-        problem(f, raw, whyNotFinite(x));
-        return null;
-      }
-      if (opts.min !== undefined && x < opts.min) {
-        problem(f, raw, `must be ≥ ${opts.min}`);
-        return null;
-      }
-      return x;
-    };
-
-    // Identifier
     let id: string | null;
-    if (ix.id === undefined) {
+    if (iId < 0) {
       id = `${positionKind}${position}`;
       counts.idsGenerated++;
     } else {
-      id = cellText(get('id'));
-      if (id === null) problem('id', get('id'), 'is empty; every row needs an identifier');
+      id = cellText(values[iId]);
+      if (id === null) problem(iId, '', 'is empty; every row needs an identifier');
     }
 
-    // Position
-    const angle = (f: 'ra' | 'dec', scale: number): number | null => {
-      const raw = get(f);
-      let x = cellNumber(raw);
-      if (x === null) {
-        problem(f, raw, 'is empty');
-        return null;
-      }
-      if (Number.isNaN(x) && typeof raw === 'string') {
-        x = f === 'ra' ? parseSexagesimalRaDeg(raw) : parseSexagesimalDecDeg(raw);
-        if (Number.isNaN(x)) {
-          problem(
-            f,
-            raw,
-            `is neither decimal degrees nor sexagesimal (${f === 'ra' ? "'hh:mm:ss.s'" : "'±dd:mm:ss.s'"})`,
-          );
-          return null;
-        }
-        return x;
-      }
-      if (!Number.isFinite(x)) {
-        problem(f, raw, whyNotFinite(x));
-        return null;
-      }
-      return x * scale;
-    };
-    let raDeg = angle('ra', raScale);
+    let raDeg = angle(iRa, raScale, true);
     if (raDeg !== null) {
       if (raDeg === 360) {
-        raDeg = 0; // exactly 360° is the same meridian as 0°; stored as 0 and counted in the warnings
+        raDeg = 0; // exactly 360° is the 0° meridian: stored as 0 and counted in the load warnings
         counts.raWrapped++;
       } else if (raDeg < 0 || raDeg > 360) {
-        problem('ra', get('ra'), 'must be in [0, 360) degrees');
+        problem(iRa, '', 'must be in [0, 360) degrees');
         raDeg = null;
       }
     }
-    let decDeg = angle('dec', decScale);
+    let decDeg = angle(iDec, decScale, false);
     if (decDeg !== null && (decDeg < -90 || decDeg > 90)) {
-      problem('dec', get('dec'), 'must be in [-90, 90] degrees');
+      problem(iDec, '', 'must be in [-90, 90] degrees');
       decDeg = null;
     }
 
@@ -208,119 +249,132 @@ export function createRowConverter(ctx: ConverterContext): (row: SourceRow) => S
     let z: number | null = null;
     let zKind: ZKind | null = null;
     let zErr: number | null = null;
-    const zSpec = num('z_spec', { min: 0 });
-    const zPhot = zSpec === null ? num('z_phot', { min: 0 }) : null;
-    if (zSpec !== null) {
+    const zSpec = num(iZs, 0);
+    const zPhot = zSpec === null ? num(iZp, 0) : null;
+    if (typeof zSpec === 'number') {
       z = zSpec;
       zKind = 'spec';
-      zErr = num('z_spec_err', { min: 0 }) ?? num('z_err', { min: 0 });
-    } else if (zPhot !== null) {
+      zErr = ok(num(iZse, 0)) ?? ok(num(iZe, 0));
+    } else if (typeof zPhot === 'number') {
       z = zPhot;
       zKind = 'photo';
-      zErr = num('z_phot_err', { min: 0 }) ?? num('z_err', { min: 0 });
-    } else if (ix.z !== undefined) {
-      z = num('z', { min: 0, required: true });
-      zErr = num('z_err', { min: 0 });
-      const kindText = cellText(get('z_kind'));
+      zErr = ok(num(iZpe, 0)) ?? ok(num(iZe, 0));
+    } else if (iZ >= 0) {
+      const zz = num(iZ, 0);
+      if (zz === null) problem(iZ, '', 'is empty');
+      z = ok(zz);
+      zErr = ok(num(iZe, 0));
+      const kindText = iKind < 0 ? null : cellText(values[iKind]);
       if (kindText !== null) {
-        zKind = Z_KINDS[kindText.toLowerCase().replace(/[^a-z]/g, '')] ?? null;
-        if (zKind === null) problem('z_kind', kindText, "must be 'spec' or 'photo'");
+        zKind = Z_KINDS.get(kindText) ?? Z_KINDS.get(kindText.toLowerCase().replace(/[^a-z]/g, '')) ?? null;
+        if (zKind === null) problem(iKind, '', "must be 'spec' or 'photo'");
       } else if (defaults.zKind) {
         zKind = defaults.zKind;
       } else {
         problem(
+          iKind,
           'z_kind',
-          '',
           "is unknown: the file gives no z_kind; say whether z is 'spec' or 'photo' (z-kind option)",
+          '',
         );
       }
     } else if (!bad) {
-      problem('z', '', 'no redshift in any redshift column');
+      problem(-1, 'z', 'no redshift in any redshift column', '');
     }
     if (zErr === null && defaults.zErr !== undefined) zErr = defaults.zErr;
-    if (z !== null && zKind === 'photo' && zErr === null) {
-      problem('z_err', '', 'a photometric redshift needs an error: add a z_err column or a default z error');
+    if (z !== null && zKind === 'photo') {
+      if (zErr === null) {
+        problem(
+          iZe,
+          'z_err',
+          'a photometric redshift needs an error: add a z_err column or a default z error',
+          '',
+        );
+      } else if (zErrOver1pz) {
+        zErr *= 1 + z;
+      }
     }
-    if (z !== null && zErr !== null && zKind === 'photo' && zErrOver1pz) zErr *= 1 + z;
 
-    // Masses and photometry
-    let logMstar = num('log_mstar');
-    let logMstarErr = num('log_mstar_err', { min: 0 });
-    if (logMstar !== null && ctx.massUnit === 'linear') {
+    // Stellar mass, photometry, halo mass
+    let logMstar = ok(num(iM, Number.NEGATIVE_INFINITY));
+    let logMstarErr = ok(num(iMe, 0));
+    if (logMstar !== null && linearMass) {
       if (logMstar <= 0) {
-        problem('log_mstar', get('log_mstar'), 'a linear stellar mass must be > 0');
+        problem(iM, '', 'a linear stellar mass must be > 0');
         logMstar = null;
       } else {
         if (logMstarErr !== null) logMstarErr = logMstarErr / (logMstar * Math.LN10);
         logMstar = Math.log10(logMstar);
       }
     }
-    if (logMstar !== null && (logMstar < LIMITS.logMstar[0] || logMstar > LIMITS.logMstar[1])) {
-      problem(
-        'log_mstar',
-        get('log_mstar'),
-        `log10(M* / M☉) must be within ${LIMITS.logMstar[0]}–${LIMITS.logMstar[1]}`,
+    logMstar = inRange(logMstar, iM, LIMITS.logMstar[0], LIMITS.logMstar[1], 'log10(M* / M☉)');
+    const mag = (i: number) =>
+      inRange(
+        ok(num(i, Number.NEGATIVE_INFINITY)),
+        i,
+        LIMITS.mag[0],
+        LIMITS.mag[1],
+        "an apparent AB magnitude (is it a 'no data' sentinel?)",
       );
-    }
-    const mag = (f: 'g' | 'i') => {
-      const m = num(f);
-      if (m !== null && (m < LIMITS.mag[0] || m > LIMITS.mag[1])) {
-        problem(
-          f,
-          get(f),
-          `apparent AB magnitude outside ${LIMITS.mag[0]}–${LIMITS.mag[1]} (a 'no data' sentinel?)`,
-        );
-        return null;
-      }
-      return m;
-    };
-    const gMag = mag('g');
-    const iMag = mag('i');
-    const logMhalo = num('log_mhalo');
-    if (logMhalo !== null && (logMhalo < LIMITS.logMhalo[0] || logMhalo > LIMITS.logMhalo[1])) {
-      problem(
-        'log_mhalo',
-        get('log_mhalo'),
-        `log10(M_halo/M☉) must be within ${LIMITS.logMhalo[0]}–${LIMITS.logMhalo[1]}`,
-      );
-    }
-    const logMhaloErr = num('log_mhalo_err', { min: 0 });
+    const gMag = iG < 0 ? null : mag(iG);
+    const iMag = iI < 0 ? null : mag(iI);
+    let logMhalo: number | null = null;
+    let logMhaloErr: number | null = null;
     let mhaloDef: MhaloDef | null = null;
-    if (logMhalo !== null) {
-      const defText = cellText(get('mhalo_def'));
-      if (defText !== null) {
-        mhaloDef = MHALO_DEFS[defText.toLowerCase().replace(/[^a-z0-9]/g, '')] ?? null;
-        if (mhaloDef === null) problem('mhalo_def', defText, "must be '200c', '200m' or 'vir'");
-      } else if (defaults.mhaloDef) {
-        mhaloDef = defaults.mhaloDef;
-      } else {
-        problem('mhalo_def', '', 'is unknown: give an mhalo_def column or a default halo mass definition');
+    if (iH >= 0) {
+      logMhalo = inRange(
+        ok(num(iH, Number.NEGATIVE_INFINITY)),
+        iH,
+        LIMITS.logMhalo[0],
+        LIMITS.logMhalo[1],
+        'log10(M_halo / M☉)',
+      );
+      logMhaloErr = ok(num(iHe, 0));
+      if (logMhalo !== null) {
+        const defText = iHd < 0 ? null : cellText(values[iHd]);
+        if (defText !== null) {
+          mhaloDef =
+            MHALO_DEFS.get(defText) ??
+            MHALO_DEFS.get(defText.toLowerCase().replace(/[^a-z0-9]/g, '')) ??
+            null;
+          if (mhaloDef === null) problem(iHd, '', "must be '200c', '200m' or 'vir'");
+        } else if (defaults.mhaloDef) {
+          mhaloDef = defaults.mhaloDef;
+        } else {
+          problem(
+            iHd,
+            'mhalo_def',
+            'is unknown: give an mhalo_def column or a default halo mass definition',
+            '',
+          );
+        }
       }
     }
 
     let massEstimated: 0 | 1 = 0;
     if (!bad && logMstar === null) {
-      if (gMag !== null && iMag !== null) {
-        if (z === null || z <= 0) {
-          problem('z', get('z'), 'a colour-based stellar mass needs z > 0 (a luminosity distance)');
+      if (gMag !== null && iMag !== null && z !== null) {
+        if (z <= 0) {
+          problem(iZ >= 0 ? iZ : -1, 'z', 'a colour-based stellar mass needs z > 0 (a luminosity distance)');
         } else {
-          const absI = absoluteMagnitude(iMag, ctx.luminosityDistanceMpc(z));
-          logMstar = logMstarTaylor2011(gMag - iMag, absI);
-          logMstarErr = Math.max(logMstarErr ?? 0, ESTIMATED_LOG_MSTAR_ERR_FLOOR);
-          massEstimated = 1;
-          if (logMstar < LIMITS.logMstar[0] || logMstar > LIMITS.logMstar[1]) {
+          const est = logMstarTaylor2011(gMag - iMag, absoluteMagnitude(iMag, ctx.luminosityDistanceMpc(z)));
+          if (est < LIMITS.logMstar[0] || est > LIMITS.logMstar[1]) {
             problem(
+              -1,
               'log_mstar',
+              `stellar mass estimated from g − i is ${est.toFixed(2)}, outside ${LIMITS.logMstar[0]}–${LIMITS.logMstar[1]}`,
               '',
-              `stellar mass estimated from g − i is ${logMstar.toFixed(2)}, outside ${LIMITS.logMstar[0]}–${LIMITS.logMstar[1]}`,
             );
           } else {
+            logMstar = est;
+            logMstarErr = Math.max(logMstarErr ?? 0, ESTIMATED_LOG_MSTAR_ERR_FLOOR);
+            massEstimated = 1;
             counts.massEstimated++;
-            if (z > 0.4) counts.estimatedBeyondCalibration++;
+            if (z > TAYLOR2011.zMaxCalibrated) counts.estimatedBeyondCalibration++;
           }
         }
       } else if (logMhalo === null) {
-        problem('log_mstar', '', 'the row needs a stellar mass, both g and i magnitudes, or a halo mass');
+        problem(iM, 'log_mstar', 'the row needs a stellar mass, both g and i magnitudes, or a halo mass', '');
       }
     }
 
@@ -344,7 +398,7 @@ export function createRowConverter(ctx: ConverterContext): (row: SourceRow) => S
       logMhalo,
       mhaloDef,
       logMhaloErr,
-      cellText(get('group_id')),
+      iGrp < 0 ? null : cellText(values[iGrp]),
       position,
     ];
   };

@@ -84,14 +84,21 @@ export async function openDelimited(
   }
   const stream = typeof source === 'string' ? createReadStream(source, { highWaterMark: 1 << 20 }) : source;
   const records = delimitedRecords(utf8Chunks(stream), delimiter);
-  const head = await records.next();
-  if (head.done) {
+  let first: DelimitedRecord[] = [];
+  try {
+    while (first.length === 0) {
+      const next = await records.next();
+      if (next.done)
+        throw new FileFormatError('the file is empty (no header line, only blank or # comment lines)');
+      first = next.value;
+    }
+  } catch (err) {
     stream.destroy();
-    throw new FileFormatError('the file is empty (no header line)');
+    throw err;
   }
   let names: string[];
   try {
-    names = checkHeader(head.value, delimiter);
+    names = checkHeader(first[0], delimiter);
   } catch (err) {
     stream.destroy();
     throw err;
@@ -104,15 +111,19 @@ export async function openDelimited(
     used = true;
     let batch: SourceRow[] = [];
     try {
-      for await (const rec of records) {
-        const values: CellValue[] = rec.fields;
-        for (let i = 0; i < values.length; i++) if (values[i] === '') values[i] = null;
-        batch.push({ position: rec.line, values });
-        if (batch.length >= batchSize) {
-          yield batch;
-          batch = [];
+      const take = function* (recs: DelimitedRecord[]): Generator<SourceRow[]> {
+        for (const rec of recs) {
+          const values: CellValue[] = rec.fields;
+          for (let i = 0; i < values.length; i++) if (values[i] === '') values[i] = null;
+          batch.push({ position: rec.line, values });
+          if (batch.length >= batchSize) {
+            yield batch;
+            batch = [];
+          }
         }
-      }
+      };
+      yield* take(first.slice(1));
+      for await (const recs of records) yield* take(recs);
       if (batch.length > 0) yield batch;
     } finally {
       stream.destroy();
