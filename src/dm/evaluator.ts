@@ -51,9 +51,24 @@ function tableFor(shape: ProfileShape, extent: number): ProjectionTable {
 }
 
 /**
+ * Where a profile ends inside r_max (MB04 at low c with a large extent), T(x, c) has a kink that moves
+ * with c and the table cannot be interpolated across it. Returns the concentration below which the
+ * evaluator uses quadrature instead: 1.3 × the largest c (scanned in 1 % steps over the table range)
+ * whose gas ends within 1.5 r_max; 0 when the gas never ends there.
+ */
+function lowestSmoothConcentration(shape: ProfileShape, extent: number): number {
+  let worst = 0;
+  for (let c = TABLE_C_MIN; c <= TABLE_C_MAX; c *= 1.01) {
+    if (shape.outerZero(c) < 1.5 * extent * c) worst = c;
+  }
+  return worst > 0 ? 1.3 * worst : 0;
+}
+
+/**
  * The hot-loop entry point. NFW uses the exact truncated closed form; mNFW and MB04 read a
  * dimensionless table built once per (profile, extent) on first use (≈1–2 s). Concentrations
- * outside [1, 40] fall back to adaptive quadrature (slow but exact). Sightlines with b ≥ r_max give 0;
+ * outside [1, 40], or where the gas ends inside r_max (MB04, low c, extent ≳ 2.5), fall back to
+ * adaptive quadrature (slow but exact). Sightlines with b ≥ r_max give 0;
  * b = 0 through an NFW cusp gives +Infinity. No allocation per call.
  */
 export function createHaloDmEvaluator(spec: ProfileSpec, opts: HaloDmEvaluatorOptions = {}): HaloDmEvaluator {
@@ -78,12 +93,13 @@ export function createHaloDmEvaluator(spec: ProfileSpec, opts: HaloDmEvaluatorOp
     };
   }
   let table: ProjectionTable | undefined;
+  const cLow = Math.max(TABLE_C_MIN, lowestSmoothConcentration(shape, extent));
   return (massMsun, radiusKpc, c, bKpc, z, fHot, fb) => {
     if (bKpc >= extent * radiusKpc) return 0;
     const x = bKpc / radiusKpc;
     if (x >= extent) return 0;
     const scale = (fHot * fb * massMsun * kE) / (radiusKpc * radiusKpc * (1 + z));
-    if (c >= TABLE_C_MIN && c <= TABLE_C_MAX) {
+    if (c >= cLow && c <= TABLE_C_MAX) {
       if (table === undefined) table = tableFor(shape, extent);
       return scale * readProjectionTable(table, x, c);
     }

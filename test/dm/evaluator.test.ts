@@ -42,6 +42,9 @@ describe('fast halo DM evaluator', () => {
     [{ kind: 'mnfw', alpha: 1, y0: 3 }, 1],
     [{ kind: 'mb04' }, 1],
     [{ kind: 'mb04' }, 2],
+    // Low-c MB04 gas ends inside r_max = 4 R_Δ: those haloes must take the quadrature fallback.
+    [{ kind: 'mb04' }, 4],
+    [{ kind: 'mnfw', alpha: 0.5, y0: 2 }, 1],
   ];
   for (const [spec, extent] of cases) {
     it(`agrees with quadrature to 1e-4 for ${JSON.stringify(spec)}, extent ${extent}`, () => {
