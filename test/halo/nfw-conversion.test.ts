@@ -40,6 +40,17 @@ describe('exact NFW conversion between mass definitions', () => {
     });
   }
 
+  it('the Hu & Kravtsov 2003 inverse x(f) is accurate to 0.41 % for 0.01 ≤ x ≤ 10 (physics.md §2.1 [calc])', () => {
+    // Feed f(x) through HK03 with Δ₂ = Δ₁ so that x₂ = x(f(x₁)); compare with x₁ = 1/c₁.
+    let worst = 0;
+    for (let lx = -2; lx <= 1; lx += 0.001) {
+      const x = 10 ** lx;
+      const hk = huKravtsov(1, 1 / x, 200, 200);
+      worst = Math.max(worst, Math.abs(1 / hk.concentration / x - 1));
+    }
+    expectClose(worst, 0.0041, { atol: 5e-5 });
+  });
+
   it('keeps the same scale radius and satisfies M = 4π ρ_s r_s³ μ(c) in both definitions', () => {
     const h = convertHaloMass(1e12, 8.078366, '200c', 'vir', 0.1, cosmo);
     const rs1 = 204.224048 / 8.078366;
