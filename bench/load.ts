@@ -49,12 +49,12 @@ async function writeCsv(): Promise<void> {
   for (const r of rows()) {
     buf += `${r[0]},${r[1].toFixed(6)},${r[2].toFixed(6)},${r[3].toFixed(4)},${r[4].toFixed(4)},${r[5]},${r[6].toFixed(2)},${r[7]}\n`;
     if (buf.length > 1 << 20) {
-      if (!out.write(buf)) await new Promise((res) => out.once('drain', res));
+      if (!out.write(buf)) await new Promise<void>((res) => out.once('drain', () => res()));
       buf = '';
     }
   }
   out.end(buf);
-  await new Promise((res) => out.once('finish', res));
+  await new Promise<void>((res) => out.once('finish', () => res()));
 }
 
 async function main(): Promise<void> {
