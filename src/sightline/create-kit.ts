@@ -1,5 +1,5 @@
 import { createCosmology } from '../cosmology/index.js';
-import { dmRestExact } from '../dm/line-integral.js';
+import { createHaloDmEvaluator, dmRestExact } from '../dm/index.js';
 import { createGasProfile } from '../gas/index.js';
 import {
   concentrationMass,
@@ -12,6 +12,7 @@ import {
 } from '../halo/index.js';
 import type { Model } from '../model/index.js';
 import type { HaloKit } from './kit.js';
+import { createZTable } from './z-table.js';
 
 /**
  * The real kit for a parsed model: cosmology from src/cosmology, SHMR / concentration / NFW
@@ -45,15 +46,23 @@ export function createHaloKit(model: Model): HaloKit {
     const c = concentrationMass(cRelation, m, z, from, haloCosmo).concentration;
     return Math.log10(convertHaloMass(m, c, from, def, z, haloCosmo).massMsun);
   };
+  const fb = cosmo.baryonFraction;
+  const fast = createHaloDmEvaluator(model.profile, { extent: model.extent, muE: model.mu_e });
   const profile = (massMsun: number, radiusKpc: number, c: number) =>
     createGasProfile(model.profile, { massMsun, radiusKpc, concentration: c }, gasOptions);
 
+  const dA = (z: number) => cosmo.angularDiameterDistanceMpc(z) * 1e3;
+  const haloDensity = (z: number) => overdensityCrit(def, z, haloCosmo) * cosmo.criticalDensityMsunKpc3(z);
+  const dATable = createZTable(dA);
+  const densityTable = createZTable(haloDensity);
   return {
     model,
     massDefinition: def,
     baryonFraction: cosmo.baryonFraction,
-    angularDiameterDistanceKpc: (z) => cosmo.angularDiameterDistanceMpc(z) * 1e3,
-    haloDensityMsunKpc3: (z) => overdensityCrit(def, z, haloCosmo) * cosmo.criticalDensityMsunKpc3(z),
+    angularDiameterDistanceKpc: dA,
+    haloDensityMsunKpc3: haloDensity,
+    angularDiameterDistanceKpcFast: dATable,
+    haloDensityMsunKpc3Fast: densityTable,
     shmrNativeDefinition: rel.nativeDefinition,
     shmrLogMhRange: rel.logMhRange,
     shmrZRange: rel.zRange,
@@ -63,7 +72,7 @@ export function createHaloKit(model: Model): HaloKit {
     toModelLogMass,
     concentration,
     concentrationScatterDex: cScatter,
-    dmRestExact: (m, r, c, b) => dmRestExact(profile(m, r, c), b),
-    dmRestFast: (m, r, c, b) => dmRestExact(profile(m, r, c), b),
+    dmObsExact: (m, r, c, b, z) => dmRestExact(profile(m, r, c), b) / (1 + z),
+    dmObsFast: (m, r, c, b, z, fHot) => fast(m, r, c, b, z, fHot, fb),
   };
 }

@@ -1,18 +1,39 @@
 export { type CentralHalo, centralHalo } from './central-halo.js';
+export { classifyCandidates } from './classify.js';
 export { createHaloKit } from './create-kit.js';
 export { physicalKeyOf, resolveDuplicates } from './duplicates.js';
 export { type HaloKit, haloRadiusFromDensity } from './kit.js';
+export { createKitCache, type KitProvider } from './kit-cache.js';
+export { type MonteCarloResult, runMonteCarlo } from './monte-carlo.js';
 export {
   foregroundThreshold,
   probabilityForeground,
   truncatedNormalBelow,
 } from './p-foreground.js';
+export { B_FLOOR_KPC, type PreparedGalaxy, prepareGalaxy } from './prepare.js';
+export { sampleVariance, varianceReductionByBinning } from './priorities.js';
 export {
   PHOTO_Z_SIGMA0_FALLBACK,
   redshiftSigma,
   searchRedshiftRange,
   velocityWindowDz,
 } from './redshift-range.js';
+export { parseSightlineRequest, runSightline, type SightlineDeps } from './run.js';
+export {
+  dmSummarySchema,
+  type EnvironmentEntry,
+  environmentEntrySchema,
+  type GalaxyResult,
+  galaxyResultSchema,
+  type PriorityEntry,
+  priorityEntrySchema,
+  type SightlineRequest,
+  type SightlineResponse,
+  type SightlineWarning,
+  sightlineRequestSchema,
+  sightlineResponseSchema,
+  warningSchema,
+} from './schemas.js';
 export {
   type Candidate,
   fetchShells,
@@ -24,4 +45,5 @@ export {
   type SearchTarget,
   selectCandidate,
 } from './search.js';
+export { type DmSummary, fractionPositive, summarizeDraws } from './summarize.js';
 export type { CatalogRow, ConeQuery, ConeSearchFn } from './types.js';

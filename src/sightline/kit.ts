@@ -16,6 +16,9 @@ export interface HaloKit {
   angularDiameterDistanceKpc(z: number): number;
   /** Mean density inside the halo radius, Δ(z)·ρc(z) [M☉ kpc⁻³], for the chosen definition. */
   haloDensityMsunKpc3(z: number): number;
+  /** D_A and Δρc from a fine z table (relative error ≲ 1e-5 for z ≥ 0.01), for Monte Carlo draws. */
+  angularDiameterDistanceKpcFast(z: number): number;
+  haloDensityMsunKpc3Fast(z: number): number;
 
   /** The SHMR's own mass definition, fitted ranges and forward relation log M*(log M_h, z). */
   readonly shmrNativeDefinition: MassDefinition;
@@ -34,10 +37,10 @@ export interface HaloKit {
   /** σ(log₁₀ c) [dex]: the model's value or the relation's published one. */
   readonly concentrationScatterDex: number;
 
-  /** DM_rest through the halo by the exact path (quadrature or closed form), at f_hot = model.f_hot. */
-  dmRestExact(massMsun: number, radiusKpc: number, c: number, bKpc: number): number;
-  /** The same by the fast table evaluator (for the Monte Carlo inner loop). */
-  dmRestFast(massMsun: number, radiusKpc: number, c: number, bKpc: number): number;
+  /** Observer-frame DM through the halo by the exact path (quadrature or closed form), f_hot = model.f_hot. */
+  dmObsExact(massMsun: number, radiusKpc: number, c: number, bKpc: number, z: number): number;
+  /** Observer-frame DM by the fast table evaluator (Monte Carlo inner loop), for a given f_hot. */
+  dmObsFast(massMsun: number, radiusKpc: number, c: number, bKpc: number, z: number, fHot: number): number;
 }
 
 /** r_Δ = [3M/(4π Δρc)]^(1/3) [proper kpc] given the kit's Δ(z)ρc(z) (physics.md §2). */
