@@ -32,14 +32,14 @@ function fnv1a(s: string): number {
 }
 
 /**
- * Each galaxy draws from its own stream, seeded from the model seed and a hash of its id, position
- * and redshift, so results do not depend on the order in which catalogues return rows (splitting a
- * catalogue in two leaves every number unchanged). Source redshift and f_hot come from a separate
+ * Each galaxy draws from its own stream, seeded from the model seed and a hash of its id and
+ * catalogued redshift, so results do not depend on the order in which catalogues return rows or on
+ * which catalogue holds a row (splitting a catalogue in two leaves every number unchanged). Source redshift and f_hot come from a separate
  * sightline stream. Generator: xoshiro128** (src/math createRng).
  */
 export function galaxyStream(seed: number, g: PreparedGalaxy): Rng {
   const r = g.cand.row;
-  return createRng(deriveSeed(seed, fnv1a(`${r.objectId}|${r.raDeg}|${r.decDeg}|${r.z}`)));
+  return createRng(deriveSeed(seed, fnv1a(`${r.objectId}|${r.z}`)));
 }
 
 function drawTruncatedPositive(rng: Rng, mean: number, sigma: number): number {
