@@ -1,33 +1,25 @@
 import { closeSync, openSync, readSync } from 'node:fs';
 import { InputError } from '../../errors.js';
 import { openDelimited } from '../readers/csv.js';
+import { openFits } from '../readers/fits.js';
+import { sniffFormat } from '../readers/sniff.js';
 import type { SourceTable } from '../readers/types.js';
+import { openVotable } from '../readers/votable.js';
 
 export type SourceFormat = 'csv' | 'tsv' | 'fits' | 'votable';
 
-/** What the first bytes say the file is (FITS primary header, XML/VOTable, or text). */
-export function sniffFirstBytes(path: string): SourceFormat | 'binary' | 'empty' {
-  const buf = Buffer.alloc(4096);
+function firstBytes(path: string): Buffer {
+  const buf = Buffer.alloc(8192);
   const fd = openSync(path, 'r');
-  let n: number;
   try {
-    n = readSync(fd, buf, 0, buf.length, 0);
+    return buf.subarray(0, readSync(fd, buf, 0, buf.length, 0));
   } finally {
     closeSync(fd);
   }
-  if (n === 0) return 'empty';
-  const head = buf.subarray(0, n);
-  const text = head.toString('latin1');
-  if (text.startsWith('SIMPLE  =')) return 'fits';
-  const trimmed = text.replace(/^\uFEFF|^ï»¿/, '').trimStart();
-  if (trimmed.startsWith('<?xml') || trimmed.startsWith('<VOTABLE')) return 'votable';
-  if (head.includes(0)) return 'binary';
-  const firstLine = trimmed.split('\n').find((l) => l.trim() !== '' && !l.startsWith('#')) ?? '';
-  return firstLine.includes('\t') && !firstLine.includes(',') ? 'tsv' : 'csv';
 }
 
 function formatFromName(fileName: string): SourceFormat | undefined {
-  const lower = fileName.toLowerCase().replace(/\.gz$/, '');
+  const lower = fileName.toLowerCase();
   if (/\.(csv|txt)$/.test(lower)) return 'csv';
   if (/\.(tsv|tab)$/.test(lower)) return 'tsv';
   if (/\.(fits|fit|fts)$/.test(lower)) return 'fits';
@@ -35,9 +27,18 @@ function formatFromName(fileName: string): SourceFormat | undefined {
   return undefined;
 }
 
+const isText = (f: string | undefined) => f === 'csv' || f === 'tsv';
+const DESCRIBE: Record<string, string> = {
+  csv: 'delimited text',
+  tsv: 'delimited text',
+  fits: 'a FITS file',
+  votable: 'a VOTable (XML)',
+  unknown: 'neither text, FITS nor VOTable (binary or other XML)',
+};
+
 /**
- * Decide the format (explicit > content; the file name must not contradict the content) and open
- * the matching reader. A .csv that holds FITS or XML, or a binary file named as text, is refused.
+ * Decide the format (declared > file name, and the content must agree: sniffFormat) and open the
+ * matching reader. A .csv that holds FITS or XML, or a binary file named as text, is refused.
  */
 export async function openTable(
   path: string,
@@ -45,28 +46,21 @@ export async function openTable(
   declared?: SourceFormat,
   delimiter?: string,
 ): Promise<SourceTable> {
-  const sniffed = sniffFirstBytes(path);
-  if (sniffed === 'empty')
+  const head = firstBytes(path);
+  if (head.length === 0)
     throw new InputError('empty_file', `${fileName} is empty (0 bytes)`, { file: fileName });
-  const byName = formatFromName(fileName);
-  const claimed = declared ?? byName;
-  const text = (f: string | undefined) => f === 'csv' || f === 'tsv';
-  if (sniffed === 'binary' || (claimed && !(claimed === sniffed || (text(claimed) && text(sniffed))))) {
-    const what =
-      sniffed === 'binary'
-        ? 'binary data'
-        : sniffed === 'fits'
-          ? 'a FITS file'
-          : sniffed === 'votable'
-            ? 'an XML/VOTable file'
-            : 'delimited text';
+  const sniffed = sniffFormat(head, fileName);
+  const claimed = declared ?? formatFromName(fileName);
+  if (sniffed === 'unknown' || (claimed && !(claimed === sniffed || (isText(claimed) && isText(sniffed))))) {
     throw new InputError(
       'format_mismatch',
-      `${fileName} is ${declared ? `declared as ${declared}` : `named as ${claimed ?? 'text'}`} but its content looks like ${what}`,
-      { file: fileName, declared: claimed, detected: sniffed },
+      `${fileName} is ${declared ? `declared as ${declared}` : `named as ${claimed ?? 'a catalogue'}`} but its content looks like ${DESCRIBE[sniffed]}`,
+      { file: fileName, claimed, detected: sniffed },
     );
   }
-  const format = claimed ?? sniffed;
-  if (format === 'csv' || format === 'tsv') return openDelimited(path, { format, delimiter });
-  throw new InputError('format_unavailable', `reading ${format} files is not available yet`, { format });
+  // Text named .csv but tab-separated is read as TSV unless the caller declared the format.
+  const format = declared ?? (isText(sniffed) ? sniffed : (claimed ?? sniffed));
+  if (format === 'fits') return openFits(path);
+  if (format === 'votable') return openVotable(path);
+  return openDelimited(path, { format, delimiter });
 }
