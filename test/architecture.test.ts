@@ -3,7 +3,18 @@ import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 
 // The science packages do no I/O and know nothing of HTTP or SQL (DEVELOPERS.md, "Layout").
-const SCIENCE = ['math', 'cosmology', 'sky', 'halo', 'gas', 'dm', 'model', 'sightline', 'budget'];
+const SCIENCE = [
+  'math',
+  'cosmology',
+  'sky',
+  'halo',
+  'gas',
+  'dm',
+  'model',
+  'sightline',
+  'budget',
+  'budget-request',
+];
 const FORBIDDEN = [
   /from ['"]node:(fs|fs\/promises|net|http|https|child_process|worker_threads)['"]/,
   /from ['"](fs|http|https|net)['"]/,

@@ -1,5 +1,6 @@
 import type { FastifyPluginAsync } from 'fastify';
 import type { ServerConfig } from '../../config.js';
+import { budgetRoutes } from './budgets.js';
 import { catalogRoutes } from './catalogs/index.js';
 import { healthRoutes } from './health.js';
 import { sightlineRoutes } from './sightlines/index.js';
@@ -9,4 +10,5 @@ export const v1Routes: FastifyPluginAsync<{ config: ServerConfig }> = async (app
   await app.register(healthRoutes);
   await app.register(catalogRoutes, { config });
   await app.register(sightlineRoutes, { config });
+  await app.register(budgetRoutes, { config });
 };
