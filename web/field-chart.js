@@ -35,8 +35,9 @@ const dmOf = (g) => g.dm?.p50 ?? g.dm?.mean ?? 0;
 export function drawFieldChart(container, result, { onHover, onLeave, onSelect }) {
   const { ra, dec } = result.sightline;
   const W = 560;
-  const H = 520;
-  const box = { left: 58, right: W - 92, top: 14, bottom: H - 48 };
+  const side = W - 58 - 92;
+  const H = 14 + side + 50;
+  const box = { left: 58, right: 58 + side, top: 14, bottom: 14 + side };
   const galaxies = result.galaxies.map((g) => ({
     g,
     p: gnomonic(g.ra, g.dec, ra, dec),
@@ -49,9 +50,6 @@ export function drawFieldChart(container, result, { onHover, onLeave, onSelect }
   for (const { p, r } of galaxies) if (p) reach = Math.max(reach, Math.hypot(p.xi, p.eta) + r);
   for (const { p } of env) if (p) reach = Math.max(reach, Math.hypot(p.xi, p.eta) * 1.05);
   reach *= 1.05;
-  const side = Math.min(box.right - box.left, box.bottom - box.top);
-  box.right = box.left + side;
-  box.bottom = box.top + side;
   // East is to the left: x decreases with ξ.
   const x = linearScale(reach, -reach, box.left, box.right);
   const y = linearScale(-reach, reach, box.bottom, box.top);
@@ -81,15 +79,19 @@ export function drawFieldChart(container, result, { onHover, onLeave, onSelect }
   ]);
   svg.append(svgEl('defs', {}, [clip]));
   const layer = svgEl('g', { 'clip-path': 'url(#field-clip)' });
-  const order = galaxies.filter(({ p }) => p).sort((a, b) => b.r - a.r);
+  // Haloes that add nothing are drawn first and faint; contributing ones on top, largest first.
+  const contributes = ({ g }) => (g.p_contributes ?? 0) > 0;
+  const order = galaxies
+    .filter(({ p }) => p)
+    .sort((a, b) => Number(contributes(a)) - Number(contributes(b)) || b.r - a.r);
   for (const { g, p, r } of order) {
     const circle = svgEl('circle', {
       cx: x(p.xi).toFixed(2),
       cy: y(p.eta).toFixed(2),
       r: Math.max(2.5, r * pxPerArcmin).toFixed(2),
-      class: `halo ${g.z_kind === 'photo' ? 'photo' : 'spec'}`,
+      class: `halo ${g.z_kind === 'photo' ? 'photo' : 'spec'}${(g.p_contributes ?? 0) > 0 ? '' : ' outside'}`,
       fill: rampColour(dmOf(g) / maxDm),
-      'fill-opacity': 0.78,
+      'fill-opacity': 0.6,
       'data-galaxy-id': g.id,
       tabindex: 0,
       role: 'button',
@@ -126,14 +128,18 @@ export function drawFieldChart(container, result, { onHover, onLeave, onSelect }
   }
   const cx = x(0);
   const cy = y(0);
-  layer.append(
-    svgEl('g', { class: 'sightline', 'aria-label': 'burst sightline' }, [
-      svgEl('line', { x1: cx - 10, x2: cx - 3, y1: cy, y2: cy }),
-      svgEl('line', { x1: cx + 3, x2: cx + 10, y1: cy, y2: cy }),
-      svgEl('line', { x1: cx, x2: cx, y1: cy - 10, y2: cy - 3 }),
-      svgEl('line', { x1: cx, x2: cx, y1: cy + 3, y2: cy + 10 }),
-    ]),
-  );
+  const cross = (className) =>
+    svgEl('g', { class: className }, [
+      svgEl('line', { x1: cx - 11, x2: cx - 3, y1: cy, y2: cy }),
+      svgEl('line', { x1: cx + 3, x2: cx + 11, y1: cy, y2: cy }),
+      svgEl('line', { x1: cx, x2: cx, y1: cy - 11, y2: cy - 3 }),
+      svgEl('line', { x1: cx, x2: cx, y1: cy + 3, y2: cy + 11 }),
+    ]);
+  const marker = svgEl('g', { 'aria-label': 'burst sightline', id: 'sightline-mark' }, [
+    cross('sightline-under'),
+    cross('sightline'),
+  ]);
+  layer.append(marker);
   svg.append(layer);
   drawColourBar(svg, { left: box.right + 22, top: box.top + 10, height: side - 20, maxDm });
   container.replaceChildren(svg);

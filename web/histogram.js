@@ -73,8 +73,10 @@ export function drawHistogram(container, draws, summary) {
     [p50, 'median', 'median'],
     [p84, 'band', '84%'],
   ];
-  for (const [value, kind, label] of marks) {
+  marks.forEach(([value, kind, label], row) => {
     const px = x(value);
+    // Labels on staggered rows so close percentiles never overlap; left of the line near the right edge.
+    const right = px < box.right - 90;
     svg.append(
       svgEl('line', {
         class: `marker ${kind}`,
@@ -84,8 +86,20 @@ export function drawHistogram(container, draws, summary) {
         y2: box.bottom,
         'data-marker': label,
       }),
-      svgEl('text', { x: px + 3, y: box.top + 10, 'font-size': 10 }, `${label} ${value.toFixed(1)}`),
+      svgEl(
+        'text',
+        {
+          x: right ? px + 4 : px - 4,
+          y: box.top + 10 + 13 * row,
+          'font-size': 10,
+          'text-anchor': right ? 'start' : 'end',
+          'paint-order': 'stroke',
+          stroke: '#ffffff',
+          'stroke-width': 3,
+        },
+        `${label} ${value.toFixed(1)}`,
+      ),
     );
-  }
+  });
   container.replaceChildren(svg);
 }

@@ -6,8 +6,11 @@ export function drawScatter(container, galaxies, { onHover, onLeave, onSelect })
   const W = 460;
   const H = 250;
   const box = { left: 52, right: W - 14, top: 14, bottom: H - 46 };
-  const points = galaxies.filter((g) => Number.isFinite(g.b_over_rhalo) && g.dm);
-  const xMax = Math.max(1, ...points.map((g) => g.b_over_rhalo)) * 1.05;
+  const X_LIMIT = 3;
+  const usable = galaxies.filter((g) => Number.isFinite(g.b_over_rhalo) && g.dm);
+  const points = usable.filter((g) => g.b_over_rhalo <= X_LIMIT);
+  const beyond = usable.length - points.length;
+  const xMax = Math.min(X_LIMIT, Math.max(1, ...points.map((g) => g.b_over_rhalo)) * 1.05);
   const yMax = Math.max(1, ...points.map((g) => g.dm.p84 ?? g.dm.p50)) * 1.08;
   const x = linearScale(0, xMax, box.left, box.right);
   const y = linearScale(0, yMax, box.bottom, box.top);
@@ -62,9 +65,18 @@ export function drawScatter(container, galaxies, { onHover, onLeave, onSelect })
         stroke: '#1f5f8b',
         'stroke-dasharray': '2 3',
       }),
-      svgEl('text', { x: x(1) + 3, y: box.top + 10, 'font-size': 10 }, 'b = r_halo'),
+      svgEl('text', { x: x(1) + 3, y: box.top + 26, 'font-size': 10 }, 'b = r_halo'),
     );
   }
   svg.append(layer);
+  if (beyond > 0) {
+    svg.append(
+      svgEl(
+        'text',
+        { x: box.right, y: box.top + 6, 'text-anchor': 'end', 'font-size': 10, fill: '#5b6273' },
+        `${beyond} more beyond b/r_halo = ${X_LIMIT} (not shown)`,
+      ),
+    );
+  }
   container.replaceChildren(svg);
 }

@@ -1,0 +1,119 @@
+import { mkdirSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { type Browser, chromium } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { loadServerConfig } from '../../server/config.js';
+import { type RunningServer, startServer } from '../../server/server.js';
+import { DEMO_BURST, DEMO_FILES } from '../server/demo-app.js';
+
+const CHROMIUM = '/usr/bin/chromium';
+const OUT = new URL('../../test-output/', import.meta.url);
+
+describe('the web field view in a real browser (Debian chromium, headless)', () => {
+  let dir: string;
+  let server: RunningServer;
+  let browser: Browser;
+
+  beforeAll(async () => {
+    dir = mkdtempSync(join(tmpdir(), 'forehalo-web-'));
+    const config = loadServerConfig({}, { dbPath: join(dir, 'web.db'), port: 0, logLevel: 'silent' });
+    server = await startServer(config, { signals: false });
+    for (const [name, file] of DEMO_FILES) {
+      const res = await fetch(`${server.url}/v1/catalogs/${name}?file_name=${file}`, {
+        method: 'PUT',
+        headers: { 'content-type': 'text/csv' },
+        body: readFileSync(new URL(`../../fixtures/demo/${file}`, import.meta.url)),
+      });
+      if (res.status !== 201) throw new Error(`demo load failed: ${await res.text()}`);
+    }
+    browser = await chromium.launch({
+      executablePath: CHROMIUM,
+      args: [
+        '--headless',
+        '--no-sandbox',
+        '--disable-gpu',
+        '--disable-background-networking',
+        '--disable-component-update',
+        '--disable-sync',
+      ],
+    });
+  });
+
+  afterAll(async () => {
+    await browser?.close();
+    await server?.shutdown('test done');
+    rmSync(dir, { recursive: true, force: true });
+  });
+
+  it('draws one mark per candidate galaxy and the draws histogram, and saves a screenshot', async () => {
+    const page = await browser.newPage({ viewport: { width: 1400, height: 1000 } });
+    const errors: string[] = [];
+    page.on('pageerror', (err) => errors.push(err.message));
+    const query = `ra=${DEMO_BURST.raDeg}&dec=${DEMO_BURST.decDeg}&z_source=${DEMO_BURST.zSource}&host_id=${DEMO_BURST.hostId}`;
+    await page.goto(`${server.url}/?${query}`);
+    await page.waitForSelector('body[data-ready="true"]');
+    // The form offers every SHMR the server accepts (read from the OpenAPI document).
+    const shmrOptions = await page.locator('#shmr option').allTextContents();
+    expect(shmrOptions).toContain('moster2013');
+    expect(await page.locator('#catalog-list input[type=checkbox]').count()).toBe(3);
+
+    await page.fill('#draws', '400');
+    const answer = page.waitForResponse(
+      (r) => r.url().endsWith('/v1/sightlines') && r.request().method() === 'POST',
+    );
+    await page.click('#run');
+    const reply = await (await answer).json();
+    await page.waitForSelector('body[data-state="done"]');
+
+    expect(reply.galaxies.length).toBeGreaterThan(0);
+    expect(await page.locator('[data-galaxy-id]').count()).toBe(reply.galaxies.length);
+    const ids = await page
+      .locator('[data-galaxy-id]')
+      .evaluateAll((els) => els.map((e) => e.getAttribute('data-galaxy-id')));
+    expect(new Set(ids)).toEqual(new Set(reply.galaxies.map((g: { id: string }) => g.id)));
+    // Photometric haloes are dashed, spectroscopic solid.
+    const photo = reply.galaxies.filter((g: { z_kind: string }) => g.z_kind === 'photo').length;
+    expect(await page.locator('[data-galaxy-id].photo').count()).toBe(photo);
+
+    expect(reply.draws_dm).toHaveLength(400);
+    const histogram = page.locator('#dm-histogram');
+    await expect(histogram.count()).resolves.toBe(1);
+    expect(await histogram.locator('rect.bar').count()).toBeGreaterThan(3);
+    expect(await histogram.locator('[data-marker]').count()).toBe(3);
+    expect(await page.locator('#galaxy-table tbody tr').count()).toBe(reply.galaxies.length);
+    expect(await page.locator('#n-candidates').textContent()).toBe(String(reply.totals.n_candidates));
+
+    // Keyboard: focusing a halo shows its row in the tooltip.
+    await page.locator('[data-galaxy-id]').last().focus();
+    await expect(page.locator('#tooltip').isVisible()).resolves.toBe(true);
+    expect(await page.locator('#tooltip').textContent()).toContain('DM =');
+    await page.locator('body').click({ position: { x: 5, y: 5 } });
+    await page.locator('#tooltip').evaluate((el) => {
+      el.hidden = true;
+    });
+
+    // Sorting the table by a column header.
+    await page.click('#galaxy-table th:nth-child(6) button');
+    const sorted = await page.locator('#galaxy-table tbody tr td:nth-child(6)').allTextContents();
+    const values = sorted.map(Number);
+    expect(values).toEqual([...values].sort((a, b) => b - a));
+
+    mkdirSync(OUT, { recursive: true });
+    await page.screenshot({ path: new URL('field-view.png', OUT).pathname, fullPage: true });
+    await page.locator('#field-svg').screenshot({ path: new URL('field-chart.png', OUT).pathname });
+    await histogram.screenshot({ path: new URL('dm-histogram.png', OUT).pathname });
+    expect(errors).toEqual([]);
+    await page.close();
+  });
+
+  it('a bad input shows the server’s field-level reason next to the form', async () => {
+    const page = await browser.newPage();
+    await page.goto(`${server.url}/?ra=400&dec=0&z_source=0.3`);
+    await page.waitForSelector('body[data-ready="true"]');
+    await page.click('#run');
+    await page.waitForSelector('#form-status.error');
+    expect(await page.locator('#form-status').textContent()).toContain('ra');
+    await page.close();
+  });
+});
