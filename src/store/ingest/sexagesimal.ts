@@ -4,7 +4,7 @@
  * (degrees). Returns NaN when the text is not sexagesimal or a part is out of range.
  */
 const PATTERN =
-  /^\s*([+\-−]?)\s*(\d{1,3})(?:\s*[:hd°\s]\s*)(\d{1,2})(?:(?:\s*[:m′'\s]\s*)(\d{1,2}(?:\.\d*)?))?\s*[s″"]?\s*$/i;
+  /^\s*([+\-−]?)\s*(\d{1,3})(?:\s*[:hd°\s]\s*)(\d{1,2})(?:(?:\s*[:m′'\s]\s*)(\d{1,2}(?:\.\d*)?))?\s*[sm″"′']?\s*$/i;
 
 function parts(text: string): { sign: number; a: number; b: number; c: number } | null {
   const m = PATTERN.exec(text);
