@@ -8,8 +8,19 @@ import { sightlineRequestSchema } from '../sightline/index.js';
  * OpenAPI document from it). Every DM is observer-frame pc cm⁻³.
  */
 
-const dmValue = (field: string, min: 'positive' | 'nonnegative') => {
-  const base = z.number({ error: `${field} must be a number [pc cm⁻³]` }).finite();
+/** Said when dm_ism is missing: forehalo has no Galactic model to fall back on. */
+const GALACTIC_HINT =
+  'forehalo ships no Galactic electron-density model; give the value from the model of your choice';
+
+const dmValue = (field: string, min: 'positive' | 'nonnegative', missingHint?: string) => {
+  const base = z
+    .number({
+      error: (issue) =>
+        issue.input === undefined
+          ? `${field} is required [pc cm⁻³]${missingHint ? `: ${missingHint}` : ''}`
+          : `${field} must be a number [pc cm⁻³]`,
+    })
+    .finite();
   const bounded =
     min === 'positive'
       ? base.gt(0, `${field} must be > 0 pc cm⁻³`)
@@ -68,7 +79,7 @@ export const budgetRequestSchema = z
   .strictObject({
     dm_obs: dmValue('dm_obs', 'positive').describe('Observed DM of the burst [pc cm⁻³]'),
     dm_obs_err: dmValue('dm_obs_err', 'nonnegative').default(0).describe('1σ error of dm_obs [pc cm⁻³]'),
-    dm_ism: dmValue('dm_ism', 'nonnegative').describe(
+    dm_ism: dmValue('dm_ism', 'nonnegative', GALACTIC_HINT).describe(
       'Milky Way ISM DM towards the burst from the Galactic electron-density model of your choice ' +
         '[pc cm⁻³]; forehalo ships no Galactic model and uses this value as given',
     ),
