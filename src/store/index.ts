@@ -7,6 +7,7 @@ export { type CatalogDetail, type CatalogInfo, dropCatalog, getCatalog, listCata
 export { type ConeQuery, type ConeRow, coneSearch, coneSearchBruteForce, galaxiesById } from './cone.js';
 export { matchCatalog, rebuildPhysicalLinks, redshiftsCompatible } from './duplicates.js';
 export type { GalaxyRow } from './galaxy-row.js';
+export { estimateRowCount } from './ingest/estimate-rows.js';
 export { FIELDS, type Field } from './ingest/fields.js';
 export {
   checkCatalogName,
