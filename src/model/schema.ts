@@ -93,8 +93,16 @@ export const modelSchema = z
     log_mstar_err_default: z.number().min(0).max(1).default(0.15),
     /** Galaxies below this redshift are ignored (caps the search angle as z → 0). */
     z_min: z.number().min(1e-4).max(0.1).default(0.001),
-    /** Largest search angle [deg] for any shell (caps the cone for very nearby massive haloes). */
-    max_search_deg: z.number().gt(0).max(30).default(10),
+    /**
+     * Largest search angle [deg] (caps the cone for very nearby massive haloes): at z = 0.02 one degree
+     * is 1.5 Mpc proper, 2 r_200c of a 10^14 M☉ halo. A warning says when a shell was capped.
+     */
+    max_search_deg: z.number().gt(0).max(30).default(1),
+    /**
+     * Photometric galaxies are never placed below this redshift: the search assumes it and draws below it
+     * are moved up to it (photo-z of very nearby galaxies are unreliable; give those spectroscopic redshifts).
+     */
+    photo_z_floor: z.number().min(0).max(0.5).default(0.02),
     /**
      * Photometric galaxies are searched over z ± min(k σ, w(1+z)) with k = photo_z_k and
      * w = photo_z_width (0.15 is the usual catastrophic-outlier threshold, physics.md §9).

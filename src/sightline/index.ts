@@ -2,6 +2,7 @@ export { type CentralHalo, centralHalo } from './central-halo.js';
 export { classifyCandidates } from './classify.js';
 export { createHaloKit } from './create-kit.js';
 export { physicalKeyOf, resolveDuplicates } from './duplicates.js';
+export { csvField, galaxyCsvHeader, galaxyCsvRows, galaxyTableCsv } from './galaxy-csv.js';
 export { type HaloKit, haloRadiusFromDensity } from './kit.js';
 export { createKitCache, type KitProvider } from './kit-cache.js';
 export { type MonteCarloResult, runMonteCarlo } from './monte-carlo.js';
@@ -46,4 +47,5 @@ export {
   selectCandidate,
 } from './search.js';
 export { type DmSummary, fractionPositive, summarizeDraws } from './summarize.js';
+export { sightlineTextReport } from './text-report.js';
 export type { CatalogRow, ConeQuery, ConeSearchFn } from './types.js';

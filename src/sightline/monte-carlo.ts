@@ -55,7 +55,8 @@ function drawTruncatedPositive(rng: Rng, mean: number, sigma: number): number {
  * is set) per draw; per galaxy its redshift (photo-z: Gaussian truncated at z > 0, moving b, ρc, r_halo,
  * c and whether it is in front), measured log M* (Gaussian), SHMR scatter mapped to halo mass by the
  * local slope at the drawn M* (σ_h = σ* / slope, physics.md §4.5), log-normal concentration scatter,
- * and the mass ceiling. Draws below model.z_min contribute nothing (the search ignores them too).
+ * and the mass ceiling. Photometric draws below photo_z_floor are placed at the floor (the search
+ * never places a galaxy nearer); spectroscopic rows below model.z_min are never candidates.
  */
 export function runMonteCarlo(
   kit: HaloKit,
@@ -82,6 +83,7 @@ export function runMonteCarlo(
   const sigmaC = kit.concentrationScatterDex;
   const extent = m.extent;
   const zMin = m.z_min;
+  const zPhotoMin = Math.max(m.z_min, m.photo_z_floor);
   for (let i = 0; i < nGal; i++) {
     const g = galaxies[i];
     const base = i * n;
@@ -100,7 +102,8 @@ export function runMonteCarlo(
     const logCeiling = ceiling;
     const fourThirdsPi = (4 * Math.PI) / 3;
     for (let d = 0; d < n; d++) {
-      const z = spec ? g.zCat : drawTruncatedPositive(rng, g.zCat, g.sigmaZ);
+      let z = spec ? g.zCat : drawTruncatedPositive(rng, g.zCat, g.sigmaZ);
+      if (!spec && z < zPhotoMin) z = zPhotoMin;
       zDrawn[base + d] = z;
       if (!(z < threshold[d]) || z < zMin) continue;
       let dA = dA0;

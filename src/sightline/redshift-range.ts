@@ -23,16 +23,21 @@ export function redshiftSigma(row: CatalogRow): number {
 /**
  * Redshift interval a row may occupy for the search: [z, z] for spectroscopic rows and
  * z ± min(k σ, w (1 + z)) for photometric ones (k = model.photo_z_k, w = model.photo_z_width;
- * w = 0.15 is the usual catastrophic-outlier threshold, physics.md §9), floored at model.z_min.
+ * w = 0.15 is the usual catastrophic-outlier threshold, physics.md §9), floored at model.z_min and,
+ * for photometric rows, at model.photo_z_floor. An empty interval (zLo > zHi) means the row cannot be used.
  * `truncated` is true when the k σ interval was cut by the w (1 + z) bound.
  */
 export function searchRedshiftRange(
   row: CatalogRow,
-  model: Pick<Model, 'photo_z_k' | 'photo_z_width' | 'z_min'>,
+  model: Pick<Model, 'photo_z_k' | 'photo_z_width' | 'z_min' | 'photo_z_floor'>,
 ): { zLo: number; zHi: number; truncated: boolean } {
   if (row.zKind === 'spec') return { zLo: row.z, zHi: row.z, truncated: false };
   const kSigma = model.photo_z_k * redshiftSigma(row);
   const bound = model.photo_z_width * (1 + row.z);
   const w = Math.min(kSigma, bound);
-  return { zLo: Math.max(model.z_min, row.z - w), zHi: row.z + w, truncated: kSigma > bound };
+  return {
+    zLo: Math.max(model.z_min, model.photo_z_floor, row.z - w),
+    zHi: row.z + w,
+    truncated: kSigma > bound,
+  };
 }

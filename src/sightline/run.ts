@@ -18,7 +18,7 @@ import {
 } from './schemas.js';
 import { findCandidates } from './search.js';
 import { fractionPositive, summarizeDraws } from './summarize.js';
-import type { ConeSearchFn } from './types.js';
+import type { CatalogRow, ConeSearchFn } from './types.js';
 import { sightlineWarnings } from './warnings.js';
 
 export interface SightlineDeps {
@@ -42,6 +42,16 @@ export function parseSightlineRequest(input: unknown) {
     );
   }
   return parsed.data;
+}
+
+function compareRows(a: CatalogRow, b: CatalogRow): number {
+  if (a.objectId !== b.objectId) return a.objectId < b.objectId ? -1 : 1;
+  return (
+    a.z - b.z ||
+    a.raDeg - b.raDeg ||
+    a.decDeg - b.decDeg ||
+    (a.catalog < b.catalog ? -1 : a.catalog > b.catalog ? 1 : 0)
+  );
 }
 
 function galaxyResult(g: PreparedGalaxy, perGalaxy: Float64Array): GalaxyResult {
@@ -90,7 +100,10 @@ export function runSightline(deps: SightlineDeps, request: unknown): SightlineRe
   });
   const cls = classifyCandidates(search.candidates, kit, zSource, zSourceErr, req.host_id);
   const ctx = { zSource, zSourceErr };
-  const prepared = cls.foreground.map((f) => prepareGalaxy(f.cand, kit, ctx, f.countable));
+  // A canonical order (id, z, position) makes the per-draw sums independent of how the store ordered
+  // or split the rows, to the last bit.
+  const canonical = [...cls.foreground].sort((a, b) => compareRows(a.cand.row, b.cand.row));
+  const prepared = canonical.map((f) => prepareGalaxy(f.cand, kit, ctx, f.countable));
   for (const g of prepared) {
     const dups = search.duplicates.get(g.cand.row);
     if (dups) g.flags.push(`duplicates_merged:${dups.map((d) => `${d.catalog}/${d.objectId}`).join(',')}`);

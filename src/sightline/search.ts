@@ -38,6 +38,8 @@ const SHELL_RATIO = 1.6;
 const SHELL_MAX_WIDTH = 0.1;
 // Radii are widened by this relative margin so round-off at the boundary never drops a row.
 const RADIUS_MARGIN = 1e-9;
+// Shells whose cone is at least this fraction of the previous (merged) cone join it (design choice).
+const MERGE_RATIO = 0.8;
 
 /** Highest catalogued z a row may have and still reach in front of, or into, the burst environment. */
 export function queryZMax(kit: HaloKit, zSourceHi: number): number {
@@ -57,26 +59,40 @@ function maxAngleRad(kit: HaloKit, zLo: number, zHi: number): number {
 }
 
 /**
- * Split catalogued redshift (z_min, zMax] into shells; each shell's cone is wide enough for the largest
- * allowed halo (model.log_mhalo_max) at the lowest redshift any of its rows may occupy (photometric rows
- * reach z − w(1+z)), and at the smallest D_A over the reachable interval; capped at model.max_search_deg.
+ * Split catalogued redshift [z_min, zMax] into shells; each shell's cone is wide enough for the largest
+ * allowed halo (model.log_mhalo_max) at the lowest redshift any of its rows may occupy (spectroscopic rows:
+ * the shell's lower edge; photometric rows: z − w(1+z), not below photo_z_floor), at the smallest D_A
+ * over the reachable interval; capped at model.max_search_deg. Consecutive shells whose radii differ by
+ * less than MERGE_RATIO are merged into one query (the store returns every z ≤ zMax in a cone, so
+ * repeating nearly equal cones only rescans the same rows).
  */
 export function planShells(kit: HaloKit, zSourceHi: number): SearchShell[] {
   const m = kit.model;
   const zMax = queryZMax(kit, zSourceHi);
   const w = m.photo_z_width;
   const cap = m.max_search_deg * DEG;
-  const shells: SearchShell[] = [];
+  const raw: SearchShell[] = [];
   let lo = m.z_min;
   while (lo < zMax) {
     const hi = Math.min(zMax, lo * SHELL_RATIO, lo + SHELL_MAX_WIDTH);
-    const reachLo = Math.max(m.z_min, lo - w * (1 + lo));
-    const reachHi = hi + w * (1 + hi);
-    const theta = maxAngleRad(kit, reachLo, reachHi) * (1 + RADIUS_MARGIN);
-    shells.push({ zLo: lo, zHi: hi, radiusDeg: Math.min(theta, cap) / DEG, capped: theta > cap });
+    let theta = maxAngleRad(kit, lo, hi);
+    const photoLo = Math.max(m.z_min, m.photo_z_floor, lo - w * (1 + lo));
+    const photoHi = hi + w * (1 + hi);
+    if (photoLo <= photoHi) theta = Math.max(theta, maxAngleRad(kit, photoLo, photoHi));
+    theta *= 1 + RADIUS_MARGIN;
+    raw.push({ zLo: lo, zHi: hi, radiusDeg: Math.min(theta, cap) / DEG, capped: theta > cap });
     lo = hi;
   }
-  return shells;
+  const merged: SearchShell[] = [];
+  for (const s of raw) {
+    const last = merged.at(-1);
+    if (last && s.radiusDeg >= MERGE_RATIO * last.radiusDeg && s.radiusDeg <= last.radiusDeg) {
+      merged[merged.length - 1] = { ...last, zHi: s.zHi, capped: last.capped || s.capped };
+    } else {
+      merged.push(s);
+    }
+  }
+  return merged;
 }
 
 /**
@@ -95,7 +111,7 @@ export function selectCandidate(
   const m = kit.model;
   if (!(row.z >= m.z_min)) return null;
   const zRange = searchRedshiftRange(row, m);
-  if (zRange.zLo > zFrontMax) return null;
+  if (zRange.zLo > zFrontMax || zRange.zLo > zRange.zHi) return null;
   const sepRad = separationRad(target.raDeg * DEG, target.decDeg * DEG, row.raDeg * DEG, row.decDeg * DEG);
   if (sepRad > m.max_search_deg * DEG) return null;
   const dMin = Math.min(
