@@ -3,6 +3,7 @@ import { budgetBodyJson, computeBudget, type SightlineRunner } from '../../budge
 import { InputError } from '../../errors.js';
 import { type BudgetFlags, budgetRequestFromFlags, flagForKey } from '../budget-args.js';
 import { budgetTable } from '../budget-table.js';
+import { dbPath } from '../globals.js';
 
 /** Request-key issues restated with the flags that set them. */
 function describeForCli(err: InputError): string {
@@ -66,12 +67,11 @@ export function register(program: Command): void {
     .option('--seed <S>', 'random seed (budget; sightline too unless --model sets it)')
     .option('--json', 'print the JSON body POST /v1/budgets would reply with')
     .action(async (flags: BudgetFlags, command: Command) => {
-      const globals = command.optsWithGlobals() as { db?: string };
       try {
         const request = budgetRequestFromFlags(flags);
         let runner: Awaited<ReturnType<typeof storeSightlineRunner>> | undefined;
         const runSightline: SightlineRunner = async (r) => {
-          runner ??= await storeSightlineRunner(globals.db ?? process.env.FOREHALO_DB ?? 'forehalo.db');
+          runner ??= await storeSightlineRunner(dbPath(command));
           return runner.run(r);
         };
         try {
@@ -81,9 +81,11 @@ export function register(program: Command): void {
           runner?.close();
         }
       } catch (err) {
-        if (!(err instanceof InputError)) throw err;
-        process.stderr.write(`forehalo budget: ${describeForCli(err)}\n`);
-        process.exitCode = 2;
+        // Shared-schema issues restated with the flags that set them; main.ts prints and exits 2.
+        if (err instanceof InputError && err.code === 'bad_request') {
+          throw new InputError(err.code, `budget: ${describeForCli(err)}`, err.details);
+        }
+        throw err;
       }
     });
 }
