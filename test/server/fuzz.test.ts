@@ -91,6 +91,11 @@ describe('fuzzing every route', () => {
     return res;
   }
 
+  /** For properties: send and discard the reply (fast-check wants void). */
+  const hit = async (options: InjectOptions): Promise<void> => {
+    await send(options);
+  };
+
   const json = (url: string, payload: unknown): InjectOptions => ({
     method: 'POST',
     url,
@@ -100,20 +105,20 @@ describe('fuzzing every route', () => {
 
   it('POST /v1/sightlines: random JSON, mutated valid bodies and raw bytes never give a 5xx', async () => {
     await fc.assert(
-      fc.asyncProperty(fc.jsonValue(), (body) => send(json('/v1/sightlines', body))),
+      fc.asyncProperty(fc.jsonValue(), (body) => hit(json('/v1/sightlines', body))),
       { numRuns: 500, seed: SEED },
     );
     await fc.assert(
       fc.asyncProperty(
         mutate(validSightline()),
         fc.constantFrom('', '?format=csv', '?format=xml'),
-        (body, q) => send(json(`/v1/sightlines${q}`, body)),
+        (body, q) => hit(json(`/v1/sightlines${q}`, body)),
       ),
       { numRuns: 500, seed: SEED + 1 },
     );
     await fc.assert(
       fc.asyncProperty(fc.string({ unit: 'binary', maxLength: 300 }), contentTypes, (raw, type) =>
-        send({ method: 'POST', url: '/v1/sightlines', payload: raw, headers: { 'content-type': type } }),
+        hit({ method: 'POST', url: '/v1/sightlines', payload: raw, headers: { 'content-type': type } }),
       ),
       { numRuns: 300, seed: SEED + 2 },
     );
@@ -147,11 +152,11 @@ describe('fuzzing every route', () => {
 
   it('POST /v1/budgets: random and mutated bodies never give a 5xx', async () => {
     await fc.assert(
-      fc.asyncProperty(fc.jsonValue(), (body) => send(json('/v1/budgets', body))),
+      fc.asyncProperty(fc.jsonValue(), (body) => hit(json('/v1/budgets', body))),
       { numRuns: 300, seed: SEED + 4 },
     );
     await fc.assert(
-      fc.asyncProperty(mutate(validBudget()), (body) => send(json('/v1/budgets', body))),
+      fc.asyncProperty(mutate(validBudget()), (body) => hit(json('/v1/budgets', body))),
       { numRuns: 400, seed: SEED + 5 },
     );
   });
@@ -173,14 +178,14 @@ describe('fuzzing every route', () => {
       .map((d) => new URLSearchParams(d).toString());
     await fc.assert(
       fc.asyncProperty(fc.constantFrom('GET', 'DELETE' as const), name, query, (method, n, q) =>
-        send({ method: method as 'GET' | 'DELETE', url: `/v1/catalogs/fuzz-${n}?${q}` }),
+        hit({ method: method as 'GET' | 'DELETE', url: `/v1/catalogs/fuzz-${n}?${q}` }),
       ),
       { numRuns: 400, seed: SEED + 6 },
     );
     // PUT with invalid names or queries: rejected before any load starts.
     await fc.assert(
       fc.asyncProperty(name, query, fc.string({ maxLength: 200 }), (n, q, body) =>
-        send({ method: 'PUT', url: `/v1/catalogs/${n}?${q}&mode=bogus`, payload: body }),
+        hit({ method: 'PUT', url: `/v1/catalogs/${n}?${q}&mode=bogus`, payload: body }),
       ),
       { numRuns: 200, seed: SEED + 7 },
     );
@@ -194,7 +199,7 @@ describe('fuzzing every route', () => {
       fc.asyncProperty(
         csvish,
         fc.constantFrom('', 'skip_invalid=true', 'format=tsv', 'format=fits'),
-        (body, q) => send({ method: 'PUT', url: `/v1/catalogs/fuzzload?mode=replace&${q}`, payload: body }),
+        (body, q) => hit({ method: 'PUT', url: `/v1/catalogs/fuzzload?mode=replace&${q}`, payload: body }),
       ),
       { numRuns: 15, seed: SEED + 8 },
     );

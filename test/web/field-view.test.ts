@@ -90,7 +90,7 @@ describe('the web field view in a real browser (Debian chromium, headless)', () 
     expect(await page.locator('#tooltip').textContent()).toContain('DM =');
     await page.locator('body').click({ position: { x: 5, y: 5 } });
     await page.locator('#tooltip').evaluate((el) => {
-      el.hidden = true;
+      el.setAttribute('hidden', '');
     });
 
     // Sorting the table by a column header.
