@@ -219,6 +219,7 @@ async function submit(ev) {
     table.setRows(reply.galaxies);
     renderLists(reply);
     setDownloads(reply, body);
+    document.dispatchEvent(new CustomEvent('forehalo:sightline', { detail: { request: body, reply } }));
     status.textContent = `${reply.galaxies.length} candidates · ${reply.totals.draws} draws`;
     document.body.dataset.state = 'done';
   } catch (err) {
