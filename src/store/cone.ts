@@ -87,18 +87,22 @@ export function coneSearchBruteForce(store: Store, q: ConeQuery): ConeRow[] {
   return finish(q, candidates());
 }
 
-/** Rows whose objectId is one of the given ids (e.g. group rows named by members' groupId). */
-export function galaxiesById(
+/**
+ * Rows that stand for a group halo (they carry a halo mass) with the given ids, from any catalogue
+ * (or the named ones): members name their group's row in groupId, and that one halo must be counted
+ * once, not once per member.
+ */
+export function groupHaloRows(
   store: Store,
-  objectIds: readonly string[],
+  groupIds: readonly string[],
   catalogs?: readonly string[],
 ): GalaxyRow[] {
+  const allowed = catalogs ? new Set(catalogs) : undefined;
+  if (allowed) catalogIds(store, catalogs); // unknown names are an error
   const rows: GalaxySqlRow[] = [];
-  for (const id of catalogIds(store, catalogs)) {
-    for (const o of objectIds) {
-      const r = store.statements.galaxyById.get(id, o);
-      if (r) rows.push(r);
-    }
+  for (const id of new Set(groupIds)) {
+    for (const r of store.statements.haloRowById.all(id))
+      if (!allowed || allowed.has(r.catalog)) rows.push(r);
   }
   return markPreferred(rows.map(toGalaxyRow));
 }

@@ -4,7 +4,7 @@
  * or reads files.
  */
 export { type CatalogDetail, type CatalogInfo, dropCatalog, getCatalog, listCatalogs } from './catalogs.js';
-export { type ConeQuery, type ConeRow, coneSearch, coneSearchBruteForce, galaxiesById } from './cone.js';
+export { type ConeQuery, type ConeRow, coneSearch, coneSearchBruteForce, groupHaloRows } from './cone.js';
 export { matchCatalog, rebuildPhysicalLinks, redshiftsCompatible } from './duplicates.js';
 export type { GalaxyRow } from './galaxy-row.js';
 export { estimateRowCount } from './ingest/estimate-rows.js';

@@ -35,8 +35,9 @@ export function prepareStatements(db: Database.Database) {
     galaxiesOfCatalog: db.prepare<[number, number], GalaxySqlRow>(
       `SELECT ${GALAXY_COLUMNS} ${FROM_GALAXY} WHERE g.catalog_id = ? AND g.z <= ?`,
     ),
-    galaxyById: db.prepare<[number, string], GalaxySqlRow>(
-      `SELECT ${GALAXY_COLUMNS} ${FROM_GALAXY} WHERE g.catalog_id = ? AND g.object_id = ?`,
+    /** Rows that carry a halo mass (group rows), by id: uses the partial index galaxy_halo_row. */
+    haloRowById: db.prepare<[string], GalaxySqlRow>(
+      `SELECT ${GALAXY_COLUMNS} ${FROM_GALAXY} WHERE g.object_id = ? AND g.log_mhalo IS NOT NULL`,
     ),
     zKindCounts: db.prepare<[number], { z_kind: string; n: number; estimated: number }>(
       'SELECT z_kind, COUNT(*) AS n, SUM(mass_estimated) AS estimated FROM galaxy WHERE catalog_id = ? GROUP BY z_kind',
