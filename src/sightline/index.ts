@@ -19,7 +19,7 @@ export {
   searchRedshiftRange,
   velocityWindowDz,
 } from './redshift-range.js';
-export { parseSightlineRequest, runSightline, type SightlineDeps } from './run.js';
+export { parseSightlineRequest, runSightline, type SightlineDeps, type SightlineTimings } from './run.js';
 export {
   dmSummarySchema,
   type EnvironmentEntry,

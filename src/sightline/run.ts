@@ -26,6 +26,16 @@ export interface SightlineDeps {
   readonly coneSearch: ConeSearchFn;
   /** Kit provider; default: a shared small LRU cache of real kits. */
   readonly kits?: KitProvider;
+  /** If given, wall-clock milliseconds per phase are added to it (benchmarks). */
+  readonly timings?: SightlineTimings;
+}
+
+/** Accumulated wall time per phase [ms]: candidate search (incl. the store), halo model, Monte Carlo, summaries. */
+export interface SightlineTimings {
+  search: number;
+  halo: number;
+  monteCarlo: number;
+  summary: number;
 }
 
 const sharedKits = createKitCache();
@@ -92,12 +102,17 @@ export function runSightline(deps: SightlineDeps, request: unknown): SightlineRe
   const zSource = req.z_source;
   const zSourceErr = req.z_source_err ?? 0;
   const zSourceHi = zSource + model.photo_z_k * zSourceErr;
+  const clock = deps.timings ? () => performance.now() : () => 0;
+  let t0 = clock();
   const search = findCandidates(deps.coneSearch, kit, {
     raDeg: req.ra,
     decDeg: req.dec,
     zSourceHi,
     catalogs: req.catalogs,
   });
+  let t1 = clock();
+  if (deps.timings) deps.timings.search += t1 - t0;
+  t0 = t1;
   const cls = classifyCandidates(search.candidates, kit, zSource, zSourceErr, req.host_id);
   const ctx = { zSource, zSourceErr };
   // A canonical order (id, z, position) makes the per-draw sums independent of how the store ordered
@@ -108,7 +123,13 @@ export function runSightline(deps: SightlineDeps, request: unknown): SightlineRe
     const dups = search.duplicates.get(g.cand.row);
     if (dups) g.flags.push(`duplicates_merged:${dups.map((d) => `${d.catalog}/${d.objectId}`).join(',')}`);
   }
+  t1 = clock();
+  if (deps.timings) deps.timings.halo += t1 - t0;
+  t0 = t1;
   const mc = runMonteCarlo(kit, prepared, { draws: model.draws, seed: model.seed, zSource, zSourceErr });
+  t1 = clock();
+  if (deps.timings) deps.timings.monteCarlo += t1 - t0;
+  t0 = t1;
   const n = mc.draws;
   const galaxies = prepared.map((g, i) => galaxyResult(g, mc.perGalaxy.subarray(i * n, (i + 1) * n)));
 
@@ -191,5 +212,6 @@ export function runSightline(deps: SightlineDeps, request: unknown): SightlineRe
     }),
   };
   if (req.include_draws) response.draws_dm = Array.from(mc.total);
+  if (deps.timings) deps.timings.summary += clock() - t0;
   return response;
 }
