@@ -22,6 +22,12 @@ export interface SearchShell {
   readonly radiusDeg: number;
   /** True when the radius was cut to model.max_search_deg. */
   readonly capped: boolean;
+  /**
+   * For the wide cone of the massive tier only: rows with log M* below minLogMstar and a catalogued halo
+   * mass below minLogMhalo (or none) cannot host a halo above TIER_LOG_MHALO, so a store may skip them.
+   */
+  readonly minLogMstar?: number;
+  readonly minLogMhalo?: number;
 }
 
 /** A row that passed the exact selection, with the numbers computed on the way. */
@@ -49,10 +55,19 @@ export function queryZMax(kit: HaloKit, zSourceHi: number): number {
   return Math.max(zFront, (zFront + w) / (1 - w));
 }
 
-/** Largest angle [rad] at which a halo of at most the ceiling mass with z in [zLo, zHi] can be a candidate. */
-function maxAngleRad(kit: HaloKit, zLo: number, zHi: number): number {
+/**
+ * Two mass tiers: every row is searched out to the angle a halo of 10^TIER_LOG_MHALO M☉ needs; only rows
+ * that could hold a larger halo (by stellar mass through the SHMR, or by catalogued halo mass) are searched
+ * out to the ceiling's angle. TIER_MARGIN_DEX covers the change of mass definition (≲ 0.2 dex between
+ * 200c, 200m and vir, physics.md §2.1) and the SHMR's z-evolution between grid points (design choices).
+ */
+const TIER_LOG_MHALO = 13;
+const TIER_MARGIN_DEX = 0.5;
+
+/** Largest angle [rad] at which a halo of at most 10^logM with z in [zLo, zHi] can be a candidate. */
+function maxAngleRad(kit: HaloKit, zLo: number, zHi: number, logM = kit.model.log_mhalo_max): number {
   const m = kit.model;
-  const rMax = haloRadiusFromDensity(10 ** m.log_mhalo_max, kit.haloDensityMsunKpc3(zLo));
+  const rMax = haloRadiusFromDensity(10 ** logM, kit.haloDensityMsunKpc3(zLo));
   // D_A(z) rises then falls (single maximum), so its minimum over an interval is at an end.
   const dMin = Math.min(kit.angularDiameterDistanceKpc(zLo), kit.angularDiameterDistanceKpc(zHi));
   return (m.search * rMax) / dMin;
@@ -69,25 +84,57 @@ function maxAngleRad(kit: HaloKit, zLo: number, zHi: number): number {
 export function planShells(kit: HaloKit, zSourceHi: number): SearchShell[] {
   const m = kit.model;
   const zMax = queryZMax(kit, zSourceHi);
-  const w = m.photo_z_width;
-  const cap = m.max_search_deg * DEG;
-  const raw: SearchShell[] = [];
+  const tierLog = Math.min(TIER_LOG_MHALO, m.log_mhalo_max);
+  const all: SearchShell[] = [];
+  const massive: SearchShell[] = [];
   let lo = m.z_min;
   while (lo < zMax) {
     const hi = Math.min(zMax, lo * SHELL_RATIO, lo + SHELL_MAX_WIDTH);
-    let theta = maxAngleRad(kit, lo, hi);
-    const photoLo = Math.max(m.z_min, m.photo_z_floor, lo - w * (1 + lo));
-    const photoHi = hi + w * (1 + hi);
-    if (photoLo <= photoHi) theta = Math.max(theta, maxAngleRad(kit, photoLo, photoHi));
-    theta *= 1 + RADIUS_MARGIN;
-    raw.push({ zLo: lo, zHi: hi, radiusDeg: Math.min(theta, cap) / DEG, capped: theta > cap });
+    all.push(shellCone(kit, lo, hi, tierLog));
+    if (tierLog < m.log_mhalo_max) {
+      // Smallest log M* that maps to a native halo mass ≥ 10^(tier − margin) anywhere in [lo, hi].
+      const native = tierLog - TIER_MARGIN_DEX;
+      let minLogMstar = Number.POSITIVE_INFINITY;
+      for (let k = 0; k <= 4; k++)
+        minLogMstar = Math.min(minLogMstar, kit.shmrLogMstar(native, lo + ((hi - lo) * k) / 4));
+      massive.push({
+        ...shellCone(kit, lo, hi, m.log_mhalo_max),
+        minLogMstar: minLogMstar - 0.05,
+        minLogMhalo: tierLog - TIER_MARGIN_DEX,
+      });
+    }
     lo = hi;
   }
+  return [...mergeShells(all), ...mergeShells(massive)];
+}
+
+/** The cone of one shell for haloes up to 10^logM: spectroscopic and photometric reach, capped. */
+function shellCone(kit: HaloKit, lo: number, hi: number, logM: number): SearchShell {
+  const m = kit.model;
+  const w = m.photo_z_width;
+  const cap = m.max_search_deg * DEG;
+  let theta = maxAngleRad(kit, lo, hi, logM);
+  const photoLo = Math.max(m.z_min, m.photo_z_floor, lo - w * (1 + lo));
+  const photoHi = hi + w * (1 + hi);
+  if (photoLo <= photoHi) theta = Math.max(theta, maxAngleRad(kit, photoLo, photoHi, logM));
+  theta *= 1 + RADIUS_MARGIN;
+  return { zLo: lo, zHi: hi, radiusDeg: Math.min(theta, cap) / DEG, capped: theta > cap };
+}
+
+/** Merge consecutive shells whose cone is within MERGE_RATIO of the previous one (keeping the wider cone). */
+function mergeShells(raw: readonly SearchShell[]): SearchShell[] {
   const merged: SearchShell[] = [];
   for (const s of raw) {
     const last = merged.at(-1);
     if (last && s.radiusDeg >= MERGE_RATIO * last.radiusDeg && s.radiusDeg <= last.radiusDeg) {
-      merged[merged.length - 1] = { ...last, zHi: s.zHi, capped: last.capped || s.capped };
+      merged[merged.length - 1] = {
+        ...last,
+        zHi: s.zHi,
+        capped: last.capped || s.capped,
+        ...(last.minLogMstar !== undefined
+          ? { minLogMstar: Math.min(last.minLogMstar, s.minLogMstar!), minLogMhalo: last.minLogMhalo }
+          : {}),
+      };
     } else {
       merged.push(s);
     }
@@ -155,6 +202,9 @@ export function fetchShells(
       catalogs: target.catalogs,
       zMin: shell.zLo,
       zMax: shell.zHi,
+      ...(shell.minLogMstar !== undefined
+        ? { minLogMstar: shell.minLogMstar, minLogMhalo: shell.minLogMhalo }
+        : {}),
     });
     for (const row of rows) {
       if (row.z < shell.zLo || row.z > shell.zHi) continue;

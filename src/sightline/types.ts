@@ -39,6 +39,13 @@ export interface ConeQuery {
   /** Lowest catalogued redshift wanted (the engine filters again, so a store may ignore it). */
   readonly zMin?: number;
   readonly zMax?: number;
+  /**
+   * Optional hints for the wide cones of massive haloes: rows with log_mstar < minLogMstar and no
+   * log_mhalo ≥ minLogMhalo are not needed. A store may ignore them (the engine selects exactly
+   * afterwards); it must never drop a row that satisfies either bound.
+   */
+  readonly minLogMstar?: number;
+  readonly minLogMhalo?: number;
 }
 
 export type ConeSearchFn = (query: ConeQuery) => readonly CatalogRow[];

@@ -107,12 +107,19 @@ describe('candidate search', () => {
 
   it('covers every catalogued redshift from z_min up to the top of the query range without gaps', () => {
     const kit = KITS[0];
-    const shells = planShells(kit, 0.8);
-    expect(shells[0].zLo).toBe(kit.model.z_min);
-    for (let i = 1; i < shells.length; i++) expect(shells[i].zLo).toBe(shells[i - 1].zHi);
-    expect(shells.at(-1)!.zHi).toBeGreaterThan(0.8);
-    // Cones shrink with redshift at low z (D_A grows faster than r_halo shrinks).
-    expect(shells[0].radiusDeg).toBeGreaterThan(shells.at(-1)!.radiusDeg);
+    const planned = planShells(kit, 0.8);
+    const allRows = planned.filter((s) => s.minLogMstar === undefined);
+    const massive = planned.filter((s) => s.minLogMstar !== undefined);
+    for (const shells of [allRows, massive]) {
+      expect(shells[0].zLo).toBe(kit.model.z_min);
+      for (let i = 1; i < shells.length; i++) expect(shells[i].zLo).toBe(shells[i - 1].zHi);
+      expect(shells.at(-1)!.zHi).toBeGreaterThan(0.8);
+      // Cones shrink with redshift at low z (D_A grows faster than r_halo shrinks).
+      expect(shells[0].radiusDeg).toBeGreaterThan(shells.at(-1)!.radiusDeg);
+    }
+    // The massive tier's cones are wider, and only for rows that could hold a halo above 10^12.5 M☉.
+    expect(massive.at(-1)!.radiusDeg).toBeGreaterThan(allRows.at(-1)!.radiusDeg);
+    expect(massive[0].minLogMhalo).toBe(12.5);
   });
 
   it('keeps the spectroscopic twin of a cross-catalogue duplicate and drops the photometric one', () => {

@@ -11,6 +11,11 @@ export function bruteCone(rows: readonly CatalogRow[], calls?: ConeQuery[]): Con
       if (q.catalogs && !q.catalogs.includes(r.catalog)) continue;
       if (q.zMin !== undefined && r.z < q.zMin) continue;
       if (q.zMax !== undefined && r.z > q.zMax) continue;
+      if (q.minLogMstar !== undefined) {
+        const byStar = r.logMstar !== null && r.logMstar >= q.minLogMstar;
+        const byHalo = r.logMhalo != null && q.minLogMhalo !== undefined && r.logMhalo >= q.minLogMhalo;
+        if (!byStar && !byHalo) continue;
+      }
       const sep = separationRad(q.raDeg * DEG, q.decDeg * DEG, r.raDeg * DEG, r.decDeg * DEG);
       if (sep <= q.radiusDeg * DEG) out.push(r);
     }
