@@ -13,6 +13,10 @@ import { DEMO_BURST, demoApp } from './demo-app.js';
 const MACQUART_Z05_FD0844 = 448.1578;
 // physics.md §7, PDF table, F = 0.32, z = 0.5: 16th percentile, median, 84th percentile of Δ.
 const DELTA_Z05 = { p16: 0.6726, p50: 0.8058, p84: 1.15 };
+// physics.md §7: p(Δ) = A Δ^(−β) exp[−(Δ^(−α) − C₀)² / (2α²σ_DM²)], α = β = 3, with the table's
+// A = 1.106170, C₀ = 2.154216, σ_DM = 0.45255 for F = 0.32, z = 0.5.
+const pdfZ05 = (delta: number) =>
+  1.10617 * delta ** -3 * Math.exp(-((delta ** -3 - 2.154216) ** 2) / (2 * 9 * 0.45255 ** 2));
 
 describe('POST /v1/budgets', () => {
   let ctx: Awaited<ReturnType<typeof demoApp>>;
@@ -69,14 +73,15 @@ describe('POST /v1/budgets', () => {
     const M = (MACQUART_Z05_FD0844 * 0.7) / 0.844;
     expectClose(b.cosmic_mean_in_force, M, { rtol: 2e-6 });
     const R = 800 - 40 - 50 - 30;
-    // Tolerance: 4 standard errors of a sample quantile, √(p(1−p)/n)/pdf(Δ_p) with pdf ≥ 0.9 over
-    // these quantiles (a safe lower bound read off the PDF shape), times M (1 + z); plus the
-    // 4-digit rounding of the physics.md quantiles.
-    const tol = (p: number) => ((4 * Math.sqrt((p * (1 - p)) / n)) / 0.9 + 1e-4) * M * 1.5;
-    expect(Math.abs(b.host_rest.p50 - (R - M * DELTA_Z05.p50) * 1.5)).toBeLessThan(tol(0.5));
-    expect(Math.abs(b.host_rest.p16 - (R - M * DELTA_Z05.p84) * 1.5)).toBeLessThan(tol(0.16));
-    expect(Math.abs(b.host_rest.p84 - (R - M * DELTA_Z05.p16) * 1.5)).toBeLessThan(tol(0.16));
-    expect(Math.abs(b.components.cosmic.p50 - M * DELTA_Z05.p50)).toBeLessThan(tol(0.5) / 1.5);
+    // Tolerance: 4 standard errors of a sample quantile, √(p(1−p)/n)/p(Δ_p) (asymptotic order-statistic
+    // variance, common practice), with the density p(Δ) from the physics.md closed form and its A, C₀,
+    // σ_DM for F = 0.32, z = 0.5; times M (1 + z); plus the 4-digit rounding of the physics.md quantiles.
+    const tol = (p: number, delta: number) =>
+      ((4 * Math.sqrt((p * (1 - p)) / n)) / pdfZ05(delta) + 1e-4) * M * 1.5;
+    expect(Math.abs(b.host_rest.p50 - (R - M * DELTA_Z05.p50) * 1.5)).toBeLessThan(tol(0.5, DELTA_Z05.p50));
+    expect(Math.abs(b.host_rest.p16 - (R - M * DELTA_Z05.p84) * 1.5)).toBeLessThan(tol(0.84, DELTA_Z05.p84));
+    expect(Math.abs(b.host_rest.p84 - (R - M * DELTA_Z05.p16) * 1.5)).toBeLessThan(tol(0.16, DELTA_Z05.p16));
+    expect(Math.abs(b.components.cosmic.p50 - M * DELTA_Z05.p50)).toBeLessThan(tol(0.5, DELTA_Z05.p50) / 1.5);
     expect(b.components.mw_ism).toEqual({ mean: 40, p16: 40, p50: 40, p84: 40 });
     expect(b.components.halos.p50).toBe(30);
   });
