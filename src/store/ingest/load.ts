@@ -1,19 +1,24 @@
 import type { Readable } from 'node:stream';
-import { createCosmology } from '../../cosmology/index.js';
 import { ConflictError, InputError } from '../../errors.js';
 import { matchCatalog, rebuildPhysicalLinks } from '../duplicates.js';
 import type { Store } from '../open.js';
-import type { SourceRow } from '../readers/types.js';
 import { STORAGE_ORDER } from '../storage-order.js';
-import { type Field, normaliseName } from './fields.js';
-import { parseMapSpec, resolveMapping } from './mapping.js';
-import { openTable, type SourceFormat } from './open-table.js';
+import {
+  type ConvertEnd,
+  type ConvertHeader,
+  type ConvertInput,
+  type ConvertSink,
+  convertFile,
+} from './convert-file.js';
+import { convertInWorker, WorkerUnavailableError } from './convert-in-worker.js';
+import type { Field } from './fields.js';
+import { parseMapSpec } from './mapping.js';
+import type { SourceFormat } from './open-table.js';
 import { ProblemLog, type RowProblem } from './problems.js';
-import { createRowConverter, type IngestDefaults, type StagedRow } from './row-converter.js';
+import type { IngestDefaults } from './row-converter.js';
 import { resolveSource } from './source-file.js';
 import { createStage } from './stage.js';
 import { TAYLOR2011 } from './taylor2011.js';
-import { guessMassUnit, type MassUnit, massUnitFromString } from './units.js';
 
 export type LoadMode = 'create' | 'replace' | 'append';
 
@@ -37,6 +42,11 @@ export interface LoadOptions {
   onProgress?: (rowsRead: number) => void;
   /** Rows per staged batch (default 50,000). */
   batchSize?: number;
+  /**
+   * Parse and check in a worker thread while this thread writes (default true; falls back to this
+   * thread where a worker cannot start, e.g. under a test runner that cannot load .ts in workers).
+   */
+  parseInWorker?: boolean;
 }
 
 export interface LoadReport {
@@ -124,62 +134,57 @@ export async function loadCatalog(store: Store, options: LoadOptions): Promise<L
     if (!existing && mode !== 'create')
       warnings.push(`catalogue '${options.name}' did not exist; created it`);
 
-    const table = await openTable(src.path, src.fileName, options.format, options.delimiter);
-    const mapping = resolveMapping(table.columns, explicitMap);
-    const log = new ProblemLog();
-    const counts = { raWrapped: 0, massEstimated: 0, estimatedBeyondCalibration: 0, idsGenerated: 0 };
-    const cosmology = createCosmology('planck18');
+    const input: ConvertInput = {
+      path: src.path,
+      fileName: src.fileName,
+      format: options.format,
+      delimiter: options.delimiter,
+      explicitMap,
+      defaults,
+      batchSize: options.batchSize ?? 50_000,
+      skipInvalid: options.skipInvalid ?? false,
+    };
+    const skipInvalid = input.skipInvalid;
     const stage = createStage(db);
     try {
-      let convert: ((row: SourceRow) => StagedRow | null) | undefined;
-      let massUnit: MassUnit = 'log';
-      let massUnitHow = 'default';
-      let rowsRead = 0;
-      let stopped = false;
-      const skipInvalid = options.skipInvalid ?? false;
-      for await (const batch of table.batches(options.batchSize ?? 50_000)) {
-        if (!convert) {
-          ({ massUnit, massUnitHow } = chooseMassUnit(
-            defaults.massUnit,
-            mapping.index.log_mstar,
-            table.columns,
-            batch,
-            warnings,
-          ));
-          convert = createRowConverter({
-            mapping,
-            columns: table.columns,
-            positionKind: table.positionKind,
-            defaults,
-            massUnit,
-            luminosityDistanceMpc: (z) => cosmology.luminosityDistanceMpc(z),
-            problems: log,
-            counts,
-          });
+      let header: ConvertHeader | undefined;
+      const sink: ConvertSink = {
+        header: (h) => {
+          header = h;
+          warnings.push(...h.warnings);
+        },
+        batch: (rows, rowsRead) => {
+          if (rows.length > 0) stage.insertMany(rows);
+          options.onProgress?.(rowsRead);
+        },
+      };
+      let end: ConvertEnd;
+      let parsedInWorker = false;
+      if (options.parseInWorker ?? true) {
+        try {
+          end = await convertInWorker(input, sink);
+          parsedInWorker = true;
+        } catch (err) {
+          if (!(err instanceof WorkerUnavailableError)) throw err;
+          end = await convertFile(input, sink);
         }
-        const good: StagedRow[] = [];
-        for (const row of batch) {
-          const r = convert(row);
-          if (r) good.push(r);
-        }
-        rowsRead += batch.length;
-        if (log.count > 0 && !skipInvalid) {
-          if (log.problems.length >= 100) {
-            stopped = true;
-            break;
-          }
-        } else {
-          stage.insertMany(good);
-        }
-        options.onProgress?.(rowsRead);
+      } else {
+        end = await convertFile(input, sink);
       }
-      if (stopped) await table.close();
-      if (rowsRead === 0) {
+      const table = header!;
+      const mapping = table.mapping;
+      const log = new ProblemLog();
+      for (const p of end.problems) log.add(p);
+      log.count = end.problemCount;
+      log.badRows = end.badRows;
+      const counts = end.counts;
+      const { massUnit, massUnitHow } = table;
+      if (end.rowsRead === 0) {
         throw new InputError('no_rows', `${src.fileName} has a header but no data rows`, {
           file: src.fileName,
         });
       }
-      if (log.count > 0 && !skipInvalid) rejectRows(log, !stopped, src.fileName);
+      if (log.count > 0 && !skipInvalid) rejectRows(log, !end.stopped, src.fileName);
 
       const mappingRecord = {
         columns: mapping.column,
@@ -194,6 +199,7 @@ export async function loadCatalog(store: Store, options: LoadOptions): Promise<L
         defaults,
         storageOrder: STORAGE_ORDER,
         delimiter: options.delimiter,
+        parsedInWorker,
       };
       addWarnings(warnings, counts);
 
@@ -248,7 +254,6 @@ export async function loadCatalog(store: Store, options: LoadOptions): Promise<L
         message: `${outcome} catalogue '${options.name}': ${result.stored} rows stored${log.badRows ? `, ${log.badRows} skipped` : ''}, ${result.total} in total`,
       };
     } finally {
-      await table.close();
       stage.drop();
     }
   } finally {
@@ -278,44 +283,6 @@ function unchanged(
     duplicatePairs: store.statements.matchCount.get(row.catalog_id, row.catalog_id)!.n,
     message: `catalogue '${name}' already holds this file (SHA-256 ${sha256.slice(0, 12)}…); nothing to do${mode === 'append' ? ' (append of the same file)' : ''}`,
   };
-}
-
-function chooseMassUnit(
-  option: MassUnit | undefined,
-  massIndex: number | undefined,
-  columns: readonly { name: string; unit?: string }[],
-  firstBatch: SourceRow[],
-  warnings: string[],
-): { massUnit: MassUnit; massUnitHow: string } {
-  if (option) return { massUnit: option, massUnitHow: 'option' };
-  if (massIndex === undefined) return { massUnit: 'log', massUnitHow: 'no stellar-mass column' };
-  const fromUnit = massUnitFromString(columns[massIndex].unit);
-  if (fromUnit) return { massUnit: fromUnit, massUnitHow: `column unit '${columns[massIndex].unit}'` };
-  const values = firstBatch.map((r) => Number(r.values[massIndex] ?? Number.NaN));
-  const guess = guessMassUnit(values);
-  const name = columns[massIndex].name;
-  if (/^(log|lmass|lmstar)/.test(normaliseName(name))) {
-    if (guess === 'linear' || guess === 'mixed') {
-      throw new InputError(
-        'ambiguous_mass_unit',
-        `column '${name}' is named as a log10 stellar mass but holds values above 10⁴; say which with the mass-unit option`,
-        { column: name },
-      );
-    }
-    return { massUnit: 'log', massUnitHow: `column name '${name}'` };
-  }
-  if (guess === 'mixed') {
-    throw new InputError(
-      'ambiguous_mass_unit',
-      `stellar-mass column '${columns[massIndex].name}' mixes log10-like (< 30) and linear-like (> 10⁴) values; say which with the mass-unit option`,
-      { column: columns[massIndex].name },
-    );
-  }
-  const unit = guess ?? 'log';
-  warnings.push(
-    `stellar-mass column '${columns[massIndex].name}' read as ${unit === 'log' ? 'log10(M*/M☉)' : 'linear M☉ (converted to log10)'}, guessed from the values of the first rows; use the mass-unit option to override`,
-  );
-  return { massUnit: unit, massUnitHow: 'guessed from values' };
 }
 
 function addWarnings(
