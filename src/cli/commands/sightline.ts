@@ -11,6 +11,7 @@ import {
   sightlineTextReport,
 } from '../../sightline/index.js';
 import { coneSearch, openStore } from '../../store/index.js';
+import { dbPath } from '../globals.js';
 
 interface SightlineFlags {
   ra?: string;
@@ -127,23 +128,12 @@ export function register(program: Command): void {
     .option('--catalog <name...>', 'search only these catalogues (repeatable)')
     .option('--host-id <id>', 'catalogue id of the host galaxy (never counted as foreground)')
     .option('--model <file.json>', 'model choices as a JSON object (defaults for every missing key)')
-    .option('--draws <n>', 'Monte Carlo draws (default 1000, at most 100000)')
-    .option('--seed <s>', 'random seed (default 1)')
+    .option('--draws <n>', 'Monte Carlo draws (default 1000, at most 100000; overrides the model file)')
+    .option('--seed <s>', 'random seed (default 1; overrides the model file)')
     .option('--json', 'print the JSON result (the HTTP response body)')
     .option('--csv', 'print the galaxy table as CSV with units in the header')
     .option('--batch <file>', 'run every sightline of a .csv (ra,dec,z_source,…) or .ndjson file')
-    .action((flags: SightlineFlags, command: Command) => {
-      try {
-        runCommand(flags, command);
-      } catch (e) {
-        if (e instanceof InputError) {
-          process.stderr.write(`forehalo sightline: ${e.message}\n`);
-          process.exitCode = 2;
-          return;
-        }
-        throw e;
-      }
-    });
+    .action((flags: SightlineFlags, command: Command) => runCommand(flags, command));
 }
 
 function runCommand(flags: SightlineFlags, command: Command): void {
@@ -173,13 +163,12 @@ function runCommand(flags: SightlineFlags, command: Command): void {
     parseSightlineRequest(request);
     jobs = [{ label: 'sightline', request }];
   }
-  const globals = command.optsWithGlobals() as { db?: string };
-  const dbPath = globals.db ?? process.env.FOREHALO_DB ?? 'forehalo.db';
+  const path = dbPath(command);
   let store: ReturnType<typeof openStore>;
   try {
-    store = openStore(dbPath, { readonly: true });
+    store = openStore(path, { readonly: true });
   } catch (e) {
-    throw new InputError('bad_argument', `cannot open the store ${dbPath}: ${(e as Error).message}`);
+    throw new InputError('bad_argument', `cannot open the store ${path}: ${(e as Error).message}`);
   }
   try {
     const deps: SightlineDeps = { coneSearch: (q) => coneSearch(store, q) };
