@@ -137,7 +137,11 @@ export function runSightline(deps: SightlineDeps, request: unknown): SightlineRe
   const ranked: Omit<PriorityEntry, 'rank'>[] = [];
   prepared.forEach((g, i) => {
     if (!g.isPhoto || g.mode === 'none') return;
-    const red = varianceReductionByBinning(mc.zDrawn.subarray(i * n, (i + 1) * n), mc.total);
+    // A galaxy that never contributes cannot change the total: its reduction is 0 without binning.
+    const red =
+      galaxies[i].p_contributes > 0
+        ? varianceReductionByBinning(mc.zDrawn.subarray(i * n, (i + 1) * n), mc.total)
+        : 0;
     const r = g.cand.row;
     ranked.push({
       id: r.objectId,

@@ -12,6 +12,9 @@ export interface DmSummary {
 
 /** Summarise draws (the input is not modified). */
 export function summarizeDraws(values: Float64Array): DmSummary {
+  let allZero = true;
+  for (let i = 0; i < values.length && allZero; i++) allZero = values[i] === 0;
+  if (allZero && values.length > 0) return { mean: 0, p2_5: 0, p16: 0, p50: 0, p84: 0, p97_5: 0 };
   const sorted = Float64Array.from(values).sort();
   return {
     mean: compensatedSum(values) / values.length,
