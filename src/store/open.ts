@@ -59,9 +59,9 @@ export function openStore(path: string, options: OpenStoreOptions = {}): Store {
       db.pragma('synchronous = NORMAL');
       // Staging tables for loads live in the temp database; keep them on disk so memory stays flat.
       db.pragma('temp_store = FILE');
-      // 64 MiB page caches: the final HEALPix-ordered copy of a large load stays in memory.
-      db.pragma('cache_size = -65536');
-      db.pragma('temp.cache_size = -65536');
+      // 32 MiB page caches: the final HEALPix-ordered copy of a large load stays in memory.
+      db.pragma('cache_size = -32768');
+      db.pragma('temp.cache_size = -32768');
       applyMigrations(db, readMigrations());
     }
     db.pragma('foreign_keys = ON');

@@ -14,6 +14,9 @@ function workerFile(): URL | undefined {
   return undefined;
 }
 
+/** A parsing worker needs little: batches are small and short-lived (keeps peak RSS down). */
+const LIMITS = { maxOldGenerationSizeMb: 96 };
+
 /** Raised when the worker cannot start (e.g. a test runner that cannot load .ts in workers). */
 export class WorkerUnavailableError extends Error {}
 
@@ -43,10 +46,10 @@ export function convertInWorker(input: ConvertInput, sink: ConvertSink): Promise
     // Built code runs the .js entry directly. From source (under tsx) the worker first registers
     // tsx's loader in its own thread, then imports the .ts entry.
     const worker = file.pathname.endsWith('.js')
-      ? new Worker(file, { workerData: input })
+      ? new Worker(file, { workerData: input, resourceLimits: LIMITS })
       : new Worker(
           `import('tsx/esm/api').then((m) => { m.register(); return import(${JSON.stringify(file.href)}); })`,
-          { eval: true, workerData: input },
+          { eval: true, workerData: input, resourceLimits: LIMITS },
         );
     let started = false;
     let settled = false;
