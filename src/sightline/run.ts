@@ -191,7 +191,7 @@ export function runSightline(deps: SightlineDeps, request: unknown): SightlineRe
       velocity_window_dz: velocityWindowDz(zSource, model.velocity_window_kms),
       z_foreground_max: foregroundThreshold(zSource, model.velocity_window_kms),
       shells: search.shells.length,
-      max_search_deg: Math.max(...search.shells.map((s) => s.radiusDeg)),
+      max_cone_deg: Math.max(...search.shells.map((s) => s.radiusDeg)),
       rows_scanned: search.rowsScanned,
       n_behind: cls.behind,
     },

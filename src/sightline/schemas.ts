@@ -92,7 +92,7 @@ export const sightlineResponseSchema = z.object({
     velocity_window_dz: z.number(),
     z_foreground_max: z.number(),
     shells: z.number().int(),
-    max_search_deg: z.number(),
+    max_cone_deg: z.number().describe('Widest cone queried [deg]'),
     rows_scanned: z.number().int(),
     n_behind: z.number().int(),
   }),

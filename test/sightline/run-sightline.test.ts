@@ -292,6 +292,25 @@ describe('runSightline: foreground, environment, host, groups', () => {
     expect(res.priorities.map((p) => p.id)).not.toContain('SPEC');
   });
 
+  it('flags a galaxy beyond the relation and carries the matching cautions', () => {
+    const row = galaxyAtImpact(SIGHT, { id: 'BIG', z: 0.2, bKpc: 300, logMstar: 12.3 });
+    const res = run([row], { z_source: 0.6 });
+    const g = res.galaxies[0];
+    expect(g.flags).toContain('mhalo_capped_at_ceiling');
+    expectClose(g.log_mhalo, 15.5, { rtol: 1e-12 });
+    const codes = res.warnings.map((w) => w.code);
+    for (const c of [
+      'model_dependence',
+      'cosmic_double_counting',
+      'central_galaxy_relation',
+      'eddington_bias',
+      'outside_validity',
+    ]) {
+      expect(codes).toContain(c);
+    }
+    expect(res.model).toMatchObject({ shmr: 'moster2013', draws: 1000, seed: 1 });
+  });
+
   it('rejects a bad request with an error naming the field', () => {
     expect(() => run([], { z_source: -1 })).toThrow(/z_source/);
     expect(() => runSightline({ coneSearch: bruteCone([]) }, { ra: 400, dec: 0, z_source: 0.3 })).toThrow(
