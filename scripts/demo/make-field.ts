@@ -15,19 +15,10 @@
 import { mkdirSync, writeFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { DEMO_BURST } from '../../src/cli/demo/scenario.js';
 import { createRng, type Rng } from '../../src/math/random.js';
 
-export const DEMO_BURST = {
-  name: 'Osprey',
-  raDeg: 162.71834,
-  decDeg: 31.40862,
-  zSource: 0.4275,
-  hostId: 'KDF-S-0001',
-  dmObs: 701.3,
-  dmObsErr: 0.5,
-  dmIsm: 38.6,
-  dmIsmErr: 7.7,
-};
+export { DEMO_BURST };
 
 const FIELD_RADIUS_DEG = 0.22;
 const here = dirname(fileURLToPath(import.meta.url));
@@ -61,13 +52,22 @@ function drawZ(rng: Rng): number {
   }
 }
 
-/** log M* from a falling mass function between 8.3 and 11.4 (exponential in log M*, slope chosen by eye). */
+/**
+ * log M* from a Schechter (1976) stellar mass function, Φ ∝ 10^((α+1)(x − x*)) exp(−10^(x − x*)), with
+ * x* = 10.8 and α = −1.3 (values typical of low-redshift fits; from memory, for invented data only),
+ * between 8.3 and 11.6, by rejection against a uniform envelope.
+ */
 function drawLogMstar(rng: Rng): number {
+  const xStar = 10.8;
+  const alpha = -1.3;
   const lo = 8.3;
-  const hi = 11.4;
-  const k = 1.1;
-  const u = rng.uniform();
-  return lo - Math.log(1 - u * (1 - Math.exp(-k * (hi - lo)))) / k;
+  const hi = 11.6;
+  const phi = (x: number) => 10 ** ((alpha + 1) * (x - xStar)) * Math.exp(-(10 ** (x - xStar)));
+  const peak = phi(lo);
+  for (;;) {
+    const x = lo + (hi - lo) * rng.uniform();
+    if (rng.uniform() * peak < phi(x)) return x;
+  }
 }
 
 function randomInField(rng: Rng): { raDeg: number; decDeg: number } {

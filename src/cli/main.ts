@@ -4,7 +4,9 @@ import { fileURLToPath } from 'node:url';
 import { Command, CommanderError } from 'commander';
 import { register as registerBudget } from './commands/budget.js';
 import { register as registerCatalog } from './commands/catalog.js';
+import { register as registerDemo } from './commands/demo.js';
 import { register as registerServe } from './commands/serve.js';
+import { register as registerSightline } from './commands/sightline.js';
 import { DEFAULT_DB } from './globals.js';
 import { EXIT_BAD_INPUT, EXIT_OK, reportError } from './report-error.js';
 
@@ -12,7 +14,13 @@ import { EXIT_BAD_INPUT, EXIT_OK, reportError } from './report-error.js';
  * forehalo's command line. Each command lives in src/cli/commands/<name>.ts and exports
  * register(program); add one import and one entry in COMMANDS to add a command.
  */
-const COMMANDS: ((program: Command) => void)[] = [registerCatalog, registerServe, registerBudget];
+const COMMANDS: ((program: Command) => void)[] = [
+  registerCatalog,
+  registerServe,
+  registerBudget,
+  registerDemo,
+  registerSightline,
+];
 
 function version(): string {
   for (const rel of ['../../package.json', '../../../package.json']) {
