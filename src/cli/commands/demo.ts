@@ -9,7 +9,7 @@ import { drawDemoCharts } from '../demo/charts.js';
 import { DEMO_BURST as DEMO, DEMO_CATALOGS } from '../demo/scenario.js';
 import { packageRoot } from '../demo/web-dir.js';
 
-interface DemoFlags {
+export interface DemoFlags {
   out: string;
   draws: string;
   seed: string;
@@ -30,7 +30,7 @@ export function register(program: Command): void {
     });
 }
 
-async function runDemo(flags: DemoFlags): Promise<void> {
+export async function runDemo(flags: DemoFlags): Promise<void> {
   const root = packageRoot();
   const out = resolve(flags.out);
   mkdirSync(out, { recursive: true });
