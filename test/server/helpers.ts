@@ -56,7 +56,7 @@ export function recordingServices(): AppServices & { calls: string[]; closed: bo
             velocity_window_dz: 0.005,
             z_foreground_max: 0.495,
             shells: 1,
-            max_search_deg: 1,
+            max_cone_deg: 1,
             rows_scanned: 1,
             n_behind: 0,
           },

@@ -35,6 +35,7 @@ describe('health, readiness and the OpenAPI document', () => {
       '/v1/catalogs/{name}': ['get', 'put', 'delete'],
       '/v1/sightlines': ['post'],
       '/v1/sightlines/batch': ['post'],
+      '/v1/budgets': ['post'],
     };
     for (const [path, methods] of Object.entries(expected)) {
       expect(Object.keys(doc.paths[path] ?? {}).sort(), path).toEqual([...methods].sort());

@@ -1,6 +1,6 @@
 import type { FastifyPluginAsyncZod } from 'fastify-type-provider-zod';
+import { type GalaxyResult, galaxyTableCsv } from '../../../../src/sightline/index.js';
 import type { ServerConfig } from '../../../config.js';
-import { galaxyTableCsv } from '../../../format/galaxy-csv.js';
 import { errorBody } from '../../../schemas/primitives.js';
 import { sightlineQuery, sightlineReply, sightlineRequest } from '../../../schemas/sightline.js';
 import { batchRoute } from './batch.js';
@@ -28,7 +28,7 @@ export const sightlineRoutes: FastifyPluginAsyncZod<{ config: ServerConfig }> = 
       checkDrawLimit(request.body.model?.draws, config.maxDraws, 'body.model.draws');
       const result = (await app.services.sightlines.run(request.body)) as Record<string, unknown>;
       if (request.query.format === 'csv') {
-        const galaxies = (result.galaxies ?? []) as Record<string, unknown>[];
+        const galaxies = (result.galaxies ?? []) as GalaxyResult[];
         return reply
           .type('text/csv; charset=utf-8')
           .header('content-disposition', 'attachment; filename="sightline-galaxies.csv"')
