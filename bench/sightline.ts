@@ -1,13 +1,14 @@
 /**
  * Sightline engine speed and memory on an all-sky mock. Usage:
- *   npx tsx bench/sightline.ts [N=10000000] [SIGHTLINES=1000]
+ *   npx tsx bench/sightline.ts [N=10000000] [SIGHTLINES=1000] [--keep DB_PATH]
+ * With --keep, the mock store is written to DB_PATH (and reused on the next run if it exists).
  * Generates N invented galaxies over the whole sky into a temporary SQLite store (through the store's
  * own loader), then runs SIGHTLINES random sightlines (z_s uniform in 0.1–1, default model, 1000 draws):
  * prints the median and 95th percentile per sightline in process, the cost split (search incl. the
  * store / halo model / Monte Carlo / summaries), the batch rate on 2 worker threads, and resident memory.
  * Target: median ≤ 5 ms per sightline, RSS < 500 MB. The temporary folder is deleted at the end.
  */
-import { createWriteStream, mkdtempSync, rmSync } from 'node:fs';
+import { createWriteStream, existsSync, mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { isMainThread, parentPort, workerData } from 'node:worker_threads';
@@ -69,17 +70,35 @@ async function writeMock(path: string, n: number): Promise<void> {
 const kits = createKitCache();
 kits(parseModel({})).dmObsFast(1e12, 200, 8, 50, 0.1, 0.75);
 
-function runJobs(dbPath: string, jobs: Job[], timings?: SightlineTimings): number[] {
+/** Runs the jobs; returns per-sightline wall times and, separately, the time spent inside the store. */
+function runJobs(
+  dbPath: string,
+  jobs: Job[],
+  timings?: SightlineTimings,
+): { total: number[]; store: number[] } {
   const store = openStore(dbPath, { readonly: true });
-  const deps = { coneSearch: (q: Parameters<typeof coneSearch>[1]) => coneSearch(store, q), timings, kits };
-  const times: number[] = [];
+  let inStore = 0;
+  const deps = {
+    coneSearch: (q: Parameters<typeof coneSearch>[1]) => {
+      const t = performance.now();
+      const rows = coneSearch(store, q);
+      inStore += performance.now() - t;
+      return rows;
+    },
+    timings,
+    kits,
+  };
+  const total: number[] = [];
+  const storeMs: number[] = [];
   for (const job of jobs) {
+    inStore = 0;
     const t = performance.now();
     runSightline(deps, job);
-    times.push(performance.now() - t);
+    total.push(performance.now() - t);
+    storeMs.push(inStore);
   }
   store.close();
-  return times;
+  return { total, store: storeMs };
 }
 
 if (!isMainThread) {
@@ -89,37 +108,53 @@ if (!isMainThread) {
   runJobs(dbPath, jobs);
   parentPort!.postMessage({ ms: performance.now() - t, rss: process.memoryUsage().rss });
 } else {
-  const n = Number(process.argv[2] ?? 10_000_000);
-  const count = Number(process.argv[3] ?? 1000);
+  const args = process.argv.slice(2);
+  const keepAt = args.indexOf('--keep');
+  const keep = keepAt >= 0 ? args.splice(keepAt, 2)[1] : undefined;
+  const n = Number(args[0] ?? 10_000_000);
+  const count = Number(args[1] ?? 1000);
   const dir = mkdtempSync(join(tmpdir(), 'forehalo-sightline-'));
   try {
     const csv = join(dir, 'mock.csv');
-    const dbPath = join(dir, 'mock.db');
+    const dbPath = keep ?? join(dir, 'mock.db');
     let t = performance.now();
-    await writeMock(csv, n);
-    console.log(
-      `mock CSV: ${n.toLocaleString()} galaxies in ${((performance.now() - t) / 1000).toFixed(1)} s`,
-    );
-    t = performance.now();
-    const store = openStore(dbPath);
-    await loadCatalog(store, { source: csv, name: 'mock' });
-    store.close();
-    rmSync(csv);
-    console.log(`loaded into SQLite in ${((performance.now() - t) / 1000).toFixed(1)} s`);
+    if (keep && existsSync(keep)) {
+      console.log(`reusing the mock store ${keep}`);
+    } else {
+      await writeMock(csv, n);
+      console.log(
+        `mock CSV: ${n.toLocaleString()} galaxies in ${((performance.now() - t) / 1000).toFixed(1)} s`,
+      );
+      t = performance.now();
+      const store = openStore(dbPath);
+      await loadCatalog(store, { source: csv, name: 'mock' });
+      store.close();
+      rmSync(csv);
+      console.log(`loaded into SQLite in ${((performance.now() - t) / 1000).toFixed(1)} s`);
+    }
 
     const jobs = sightlines(count, 7);
     runJobs(dbPath, sightlines(5, 99)); // warm-up: kit tables are built once per model
     const timings: SightlineTimings = { search: 0, halo: 0, monteCarlo: 0, summary: 0 };
-    const times = runJobs(dbPath, jobs, timings).sort((a, b) => a - b);
+    const run = runJobs(dbPath, jobs, timings);
+    const times = [...run.total].sort((a, b) => a - b);
+    const engine = run.total.map((t, i) => t - run.store[i]).sort((a, b) => a - b);
+    const storeTimes = [...run.store].sort((a, b) => a - b);
     const total = times.reduce((a, b) => a + b, 0);
+    const storeTotal = storeTimes.reduce((a, b) => a + b, 0);
+    const q = (xs: number[], p: number) => quantileSorted(xs, p).toFixed(2);
     console.log(
-      `in process, ${count} sightlines, 1000 draws: median ${quantileSorted(times, 0.5).toFixed(2)} ms, ` +
-        `p95 ${quantileSorted(times, 0.95).toFixed(2)} ms, max ${times.at(-1)!.toFixed(1)} ms (target median ≤ 5 ms)`,
+      `in process, ${count} sightlines, 1000 draws: median ${q(times, 0.5)} ms, p95 ${q(times, 0.95)} ms, ` +
+        `max ${times.at(-1)!.toFixed(1)} ms (target median ≤ 5 ms)`,
+    );
+    console.log(
+      `  of which inside the store's cone search: median ${q(storeTimes, 0.5)} ms; ` +
+        `engine alone: median ${q(engine, 0.5)} ms, p95 ${q(engine, 0.95)} ms`,
     );
     const share = (x: number) => `${((100 * x) / total).toFixed(0)} %`;
     console.log(
-      `cost split: search ${share(timings.search)}, halo model ${share(timings.halo)}, ` +
-        `Monte Carlo ${share(timings.monteCarlo)}, summaries ${share(timings.summary)}`,
+      `cost split: store ${share(storeTotal)}, search planning/selection ${share(timings.search - storeTotal)}, ` +
+        `halo model ${share(timings.halo)}, Monte Carlo ${share(timings.monteCarlo)}, summaries ${share(timings.summary)}`,
     );
     const probe = openStore(dbPath, { readonly: true });
     let nCand = 0;

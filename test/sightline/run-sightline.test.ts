@@ -206,6 +206,33 @@ describe('runSightline: Monte Carlo bookkeeping', () => {
   });
 });
 
+describe('runSightline: source-redshift error and f_hot prior', () => {
+  it('lets a spectroscopic galaxy near z_s contribute in the fraction of draws where it is in front', () => {
+    const row = galaxyAtImpact(SIGHT, { id: 'NEAR', z: 0.39, bKpc: 40, logMstar: 10.5, logMstarErr: 0 });
+    const res = run([row], { z_source: 0.4, z_source_err: 0.01, model: { ...NO_SCATTER, draws: 4000 } });
+    const g = res.galaxies[0];
+    // P(z < z_s − Δz) with z_s ~ N(0.4, 0.01): Φ((T(0.4) − 0.39)/(0.01 (1 − β))) (physics.md §9, σ_T).
+    expect(g.p_fg).toBeGreaterThan(0.1);
+    expect(g.p_fg).toBeLessThan(0.9);
+    const se = Math.sqrt((g.p_fg * (1 - g.p_fg)) / 4000);
+    expect(Math.abs(g.p_contributes - g.p_fg)).toBeLessThan(4 * se);
+  });
+
+  it('scales the DM linearly with a uniform f_hot prior (gas mass ∝ f_hot, physics.md §5)', () => {
+    const row = galaxyAtImpact(SIGHT, { id: 'F', z: 0.15, bKpc: 70, logMstar: 10.6, logMstarErr: 0 });
+    const res = run([row], {
+      z_source: 0.5,
+      model: { ...NO_SCATTER, draws: 4000, f_hot_prior: { kind: 'uniform', min: 0.5, max: 1 } },
+    });
+    const g = res.galaxies[0];
+    const perUnitFHot = g.dm_central / 0.75;
+    // Uniform on [0.5, 1]: percentiles at 0.5 + 0.5 q; 2 % covers sampling of 4000 draws.
+    expectClose(g.dm.p2_5, perUnitFHot * (0.5 + 0.5 * 0.025), { rtol: 0.02 });
+    expectClose(g.dm.p50, perUnitFHot * 0.75, { rtol: 0.02 });
+    expectClose(g.dm.p97_5, perUnitFHot * (0.5 + 0.5 * 0.975), { rtol: 0.02 });
+  });
+});
+
 describe('runSightline: foreground, environment, host, groups', () => {
   it('gives photometric galaxies p_fg from the truncated normal CDF (physics.md §9 table)', () => {
     // Source: physics.md §9 [calc] (scipy 1.10): (z_p, z_s, σ₀) → P_fg (truncated at z > 0). No velocity window.
