@@ -3,6 +3,7 @@ import fp from 'fastify-plugin';
 import { hasZodFastifySchemaValidationErrors } from 'fastify-type-provider-zod';
 import { ConflictError, InputError, NotFoundError } from '../../src/errors.js';
 import { PayloadTooLargeError, UnauthorizedError } from '../http-errors.js';
+import { redactDeep, redactPaths } from '../redact.js';
 
 export interface ErrorReply {
   error: { code: string; message: string; details?: unknown };
@@ -73,7 +74,9 @@ export function describeError(err: unknown, requestId: string): { status: number
   if (err instanceof InputError) {
     return {
       status: statusOfInputError(err),
-      body: { error: { code: err.code, message: err.message, details: err.details } },
+      body: {
+        error: { code: err.code, message: redactPaths(err.message), details: redactDeep(err.details) },
+      },
     };
   }
   const fastifyErr = err as Partial<FastifyError>;

@@ -104,3 +104,26 @@ describe('error replies', () => {
     expect(res.json().error.code).toBe('body_too_large');
   });
 });
+
+describe('file-system paths never reach an error body', () => {
+  it('an InputError mentioning a server path is shown with the path replaced', async () => {
+    const { describeError } = await import('../../server/plugins/error-handler.js');
+    const { InputError } = await import('../../src/errors.js');
+    const err = new InputError('bad_file', 'cannot read /tmp/forehalo-http-abc/upload: gone', {
+      file: '/srv/data/x.db',
+      where: { line: 3 },
+    });
+    const { status, body } = describeError(err, 'id');
+    expect(status).toBe(400);
+    expect(body.error.message).toBe('cannot read [path]: gone');
+    expect(body.error.details).toEqual({ file: '[path]', where: { line: 3 } });
+  });
+
+  it('units, ratios and API routes in messages are left alone', async () => {
+    const { redactPaths } = await import('../../server/redact.js');
+    expect(redactPaths('DM must be ≤ 100000 pc cm⁻³; b/r_halo = 2')).toBe(
+      'DM must be ≤ 100000 pc cm⁻³; b/r_halo = 2',
+    );
+    expect(redactPaths('see /v1/catalogs/kestrel-spec')).toBe('see /v1/catalogs/kestrel-spec');
+  });
+});
