@@ -4,8 +4,9 @@ import { createGasProfile } from '../gas/index.js';
 import {
   concentrationMass,
   convertHaloMass,
+  createShmrInverter,
   type HaloCosmology,
-  invertShmrExact,
+  type HaloMassInversion,
   type MassDefinition,
   overdensityCrit,
   stellarHaloRelation,
@@ -24,6 +25,8 @@ export function createHaloKit(model: Model): HaloKit {
   const haloCosmo: HaloCosmology = cosmo;
   const def = model.mass_definition;
   const rel = stellarHaloRelation(model.shmr);
+  // Table-guided Newton inversion, agreeing with Brent's root to ~1e-11 dex (src/halo).
+  const inverter = createShmrInverter(rel);
   const cRelation = model.concentration;
   const gasOptions = {
     fHot: model.f_hot,
@@ -67,7 +70,11 @@ export function createHaloKit(model: Model): HaloKit {
     shmrLogMhRange: rel.logMhRange,
     shmrZRange: rel.zRange,
     shmrLogMstar: (logMh, z) => rel.logMstar(logMh, z),
-    shmrInvert: (logMstar, z) => invertShmrExact(rel, logMstar, z),
+    shmrInvert: (logMstar, z) => {
+      const out: HaloMassInversion = { logMh: 0, status: 'ok' };
+      inverter.invertInto(out, logMstar, z);
+      return out;
+    },
     shmrScatterDex: (z) => (shmrScatterOverride === 'published' ? rel.scatterDex(z) : shmrScatterOverride),
     toModelLogMass,
     concentration,
