@@ -17,7 +17,8 @@ import { Readable } from 'node:stream';
 import { parseArgs } from 'node:util';
 import autocannon from 'autocannon';
 import { createRng } from '../src/math/random.js';
-import { loadCatalog, openStore } from '../src/store/index.js';
+import { runSightline } from '../src/sightline/index.js';
+import { coneSearch, loadCatalog, openStore } from '../src/store/index.js';
 import { writeSyntheticCatalog } from '../test/helpers/synthetic-catalog.js';
 
 const { values } = parseArgs({
@@ -69,8 +70,10 @@ const pct = (sorted: number[], q: number) =>
   sorted[Math.min(sorted.length - 1, Math.floor(q * sorted.length))];
 
 async function main() {
+  const capDeg2 = 2 * Math.PI * (180 / Math.PI) ** 2 * (1 - Math.cos((FIELD.radiusDeg * Math.PI) / 180));
   console.log(
-    `forehalo bench/http — ${ROWS} galaxies, ${WORKERS} HTTP worker(s), ${CONNECTIONS} connections`,
+    `forehalo bench/http — ${ROWS} galaxies on a ${FIELD.radiusDeg}° cap (${(ROWS / capDeg2).toFixed(0)} per deg²), ` +
+      `${WORKERS} HTTP worker(s), ${CONNECTIONS} connections, ${SECONDS} s`,
   );
   const csv = join(dir, 'field.csv');
   let t = performance.now();
@@ -98,6 +101,27 @@ async function main() {
     { stdio: ['ignore', 'ignore', 'inherit'], env: { ...process.env, FOREHALO_LOG_LEVEL: 'warn' } },
   );
   await waitReady();
+
+  // The engine alone, in this process, on the same store: what one request costs without HTTP.
+  const engineRng = createRng(7);
+  const readStore = openStore(dbPath, { readonly: true });
+  const deps = { coneSearch: (q: Parameters<typeof coneSearch>[1]) => coneSearch(readStore, q) };
+  for (let i = 0; i < 5; i++) runSightline(deps, JSON.parse(randomBody(engineRng)));
+  t = performance.now();
+  const ENGINE_RUNS = 40;
+  for (let i = 0; i < ENGINE_RUNS; i++) runSightline(deps, JSON.parse(randomBody(engineRng)));
+  const engineMs = (performance.now() - t) / ENGINE_RUNS;
+  readStore.close();
+  console.log(
+    `engine alone (runSightline, 200 draws, one thread): ${engineMs.toFixed(1)} ms per sightline ` +
+      `→ at most ~${((1000 / engineMs) * WORKERS).toFixed(0)} req/s on ${WORKERS} cores`,
+  );
+
+  // The HTTP layer alone: GET /v1/health through the same server (framework ceiling).
+  const health = await autocannon({ url: `${BASE}/v1/health`, connections: CONNECTIONS, duration: 3 });
+  console.log(
+    `GET /v1/health (HTTP layer only): ${health.requests.average.toFixed(0)} req/s; p50 ${health.latency.p50} ms`,
+  );
 
   const rng = createRng(42);
   for (let i = 0; i < 20; i++) {
