@@ -1,9 +1,13 @@
 import type { CellValue } from '../readers/types.js';
 
-/** A cell read as a number: null when empty, NaN when it is not a plain number. */
+/**
+ * A cell read as a number: null when empty, NaN when it is not a plain number. A NaN that arrives as
+ * a binary number (FITS or VOTable floating-point column) is that format's null value (FITS
+ * Standard 4.0 §7.3.3.1; VOTable 1.4 §6), so it reads as empty; the text 'NaN' in a CSV is an error.
+ */
 export function cellNumber(v: CellValue | undefined): number | null {
   if (v === null || v === undefined) return null;
-  if (typeof v === 'number') return v;
+  if (typeof v === 'number') return Number.isNaN(v) ? null : v;
   if (typeof v === 'boolean') return Number.NaN;
   const s = v.trim();
   if (s === '') return null;
