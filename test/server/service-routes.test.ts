@@ -134,3 +134,22 @@ describe('sightline output formats', () => {
     await small.close();
   });
 });
+
+describe('batch body limit', () => {
+  it('a batch body over the limit, even one long line, ends with a body_too_large line', async () => {
+    const app = await buildTestApp({ bodyLimitBytes: 4096 });
+    const res = await app.inject({
+      method: 'POST',
+      url: '/v1/sightlines/batch',
+      payload: `${JSON.stringify({ ra: 1, dec: 0, z_source: 0.5 })}\n${'x'.repeat(50_000)}`,
+      headers: { 'content-type': 'application/x-ndjson' },
+    });
+    expect(res.statusCode).toBe(200);
+    const out = res.body
+      .trim()
+      .split('\n')
+      .map((l) => JSON.parse(l));
+    expect(out[out.length - 1].error.code).toBe('body_too_large');
+    await app.close();
+  });
+});

@@ -1,5 +1,5 @@
 import { createInterface } from 'node:readline';
-import { Readable } from 'node:stream';
+import { Readable, Transform } from 'node:stream';
 import type { FastifyPluginAsyncZod } from 'fastify-type-provider-zod';
 import { z } from 'zod';
 import { InputError } from '../../../../src/errors.js';
@@ -24,14 +24,24 @@ export async function* runBatch(
   let bytes = 0;
   let count = 0;
   let lineNo = 0;
-  input.on('data', (chunk: Buffer) => {
-    bytes += chunk.length;
+  let overLimit = false;
+  // Passes at most maxBytes on and swallows the rest, so even a body without newlines stays bounded.
+  const capped = new Transform({
+    transform(chunk: Buffer, _encoding, done) {
+      if (!overLimit) {
+        bytes += chunk.length;
+        if (bytes > limits.maxBytes) overLimit = true;
+        else return done(null, chunk);
+      }
+      done();
+    },
   });
-  const lines = createInterface({ input, crlfDelay: Number.POSITIVE_INFINITY });
+  input.pipe(capped);
+  const lines = createInterface({ input: capped, crlfDelay: Number.POSITIVE_INFINITY });
   try {
     for await (const line of lines) {
       lineNo++;
-      if (bytes > limits.maxBytes) {
+      if (overLimit) {
         const err = new PayloadTooLargeError(
           `Batch body exceeds ${limits.maxBytes} bytes (FOREHALO_BODY_LIMIT)`,
         );
@@ -50,8 +60,15 @@ export async function* runBatch(
       }
       yield `${JSON.stringify(await runLine(line, lineNo, services, limits.maxDraws, requestId))}\n`;
     }
+    if (overLimit) {
+      const err = new PayloadTooLargeError(
+        `Batch body exceeds ${limits.maxBytes} bytes (FOREHALO_BODY_LIMIT)`,
+      );
+      yield `${JSON.stringify({ line: lineNo + 1, ...describeError(err, requestId).body })}\n`;
+    }
   } finally {
     lines.close();
+    input.unpipe(capped);
     input.resume();
   }
 }
