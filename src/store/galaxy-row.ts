@@ -87,6 +87,60 @@ export function toGalaxyRow(r: GalaxySqlRow): Omit<GalaxyRow, 'preferred'> {
   };
 }
 
+/**
+ * Columns of the lean cone scan, in this order (no join with catalog: its name is added in code).
+ * fromScan reads a raw row (array) of exactly these columns.
+ */
+export const SCAN_COLUMNS = `g.object_id, g.ra_deg, g.dec_deg, g.z, g.z_err, g.z_kind, g.log_mstar, g.log_mstar_err,
+  g.mass_estimated, g.g_mag, g.i_mag, g.log_mhalo, g.mhalo_def, g.log_mhalo_err, g.group_id, g.hpx,
+  g.source_position, p.physical_key`;
+
+/** A mutable GalaxyRow while a query answer is being built (preferred is set last). */
+export type BuildingRow = { -readonly [K in keyof GalaxyRow]: GalaxyRow[K] };
+
+/** One raw SCAN_COLUMNS row of catalogue `catalog` as a row object (preferred: true until marked). */
+export function fromScan(r: unknown[], catalog: string): BuildingRow {
+  const objectId = r[0] as string;
+  const key = r[17] as string | null;
+  return {
+    catalog,
+    objectId,
+    raDeg: r[1] as number,
+    decDeg: r[2] as number,
+    z: r[3] as number,
+    zErr: r[4] as number | null,
+    zKind: r[5] as GalaxyRow['zKind'],
+    logMstar: r[6] as number | null,
+    logMstarErr: r[7] as number | null,
+    massEstimated: r[8] === 1,
+    gMag: r[9] as number | null,
+    iMag: r[10] as number | null,
+    logMhalo: r[11] as number | null,
+    mhaloDef: r[12] as GalaxyRow['mhaloDef'],
+    logMhaloErr: r[13] as number | null,
+    groupId: r[14] as string | null,
+    hpx: r[15] as number,
+    sourcePosition: r[16] as number,
+    physicalKey: key ?? `${catalog}/${objectId}`,
+    preferred: true,
+  };
+}
+
+/**
+ * Set preferred in place: one row per physical galaxy (same rule and tie order as markPreferred).
+ * Pass only the rows that carry a physical_link key: an unlinked row's key 'catalogue/object' is
+ * its own (catalogue names hold no '/'), so it stays preferred.
+ */
+export function markPreferredInPlace(linked: readonly BuildingRow[]): void {
+  if (linked.length === 0) return;
+  const best = new Map<string, BuildingRow>();
+  for (const r of linked) {
+    const cur = best.get(r.physicalKey);
+    if (!cur || better(r, cur)) best.set(r.physicalKey, r);
+  }
+  for (const r of linked) r.preferred = best.get(r.physicalKey) === r;
+}
+
 function better(a: Omit<GalaxyRow, 'preferred'>, b: Omit<GalaxyRow, 'preferred'>): boolean {
   if (a.zKind !== b.zKind) return a.zKind === 'spec';
   const ea = a.zErr ?? Number.POSITIVE_INFINITY;

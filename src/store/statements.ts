@@ -24,14 +24,15 @@ export function prepareStatements(db: Database.Database) {
   return {
     catalogByName: db.prepare<[string], CatalogSqlRow>('SELECT * FROM catalog WHERE name = ?'),
     catalogs: db.prepare<[], CatalogSqlRow>('SELECT * FROM catalog ORDER BY name'),
+    /** Ids and names only (a cone search needs no JSON reports). */
+    catalogNames: db.prepare<[], { catalog_id: number; name: string }>(
+      'SELECT catalog_id, name FROM catalog ORDER BY name',
+    ),
     deleteCatalog: db.prepare<[number]>('DELETE FROM catalog WHERE catalog_id = ?'),
     insertCatalog: db.prepare<
       [string, string, string, string, string, number, number, string, string, string]
     >(`INSERT INTO catalog (name, description, source_file, source_sha256, format, row_count, rows_skipped,
         loaded_at, mapping_json, report_json) VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?)`),
-    galaxiesInRange: db.prepare<[number, number, number, number], GalaxySqlRow>(
-      `SELECT ${GALAXY_COLUMNS} ${FROM_GALAXY} WHERE g.catalog_id = ? AND g.hpx BETWEEN ? AND ? AND g.z <= ?`,
-    ),
     galaxiesOfCatalog: db.prepare<[number, number], GalaxySqlRow>(
       `SELECT ${GALAXY_COLUMNS} ${FROM_GALAXY} WHERE g.catalog_id = ? AND g.z <= ?`,
     ),

@@ -1,0 +1,82 @@
+import type Database from 'better-sqlite3';
+import type { PixelRange } from '../sky/index.js';
+import { SCAN_COLUMNS } from './galaxy-row.js';
+
+/** Filters applied inside SQLite before a row reaches JavaScript (all bounds inclusive). */
+export interface ScanFilter {
+  catalogId: number;
+  zMin: number;
+  zMax: number;
+  /** A band in declination that contains the whole cone (cheap pre-test; the exact test follows). */
+  decLoDeg: number;
+  decHiDeg: number;
+  /**
+   * Mass hint: when set, a row is kept only if log_mstar ≥ minLogMstar, or log_mhalo ≥ minLogMhalo,
+   * or it has neither mass, or it is linked to a twin in another catalogue (its twin may be the
+   * preferred row, so dropping it could change which row stands for the galaxy).
+   */
+  mass?: { minLogMstar: number; minLogMhalo: number };
+}
+
+/** Ranges per statement: each count gets its own prepared statement (a VALUES list of that size). */
+export const MAX_SCAN_RANGES = 64;
+
+const cache = new WeakMap<Database.Database, Map<string, Database.Statement>>();
+
+function scanStatement(db: Database.Database, nRanges: number, withMass: boolean): Database.Statement {
+  let byShape = cache.get(db);
+  if (!byShape) {
+    byShape = new Map();
+    cache.set(db, byShape);
+  }
+  const key = `${nRanges}:${withMass ? 1 : 0}`;
+  let stmt = byShape.get(key);
+  if (!stmt) {
+    const values = Array.from({ length: nRanges }, () => '(?, ?)').join(', ');
+    const mass = withMass
+      ? `AND (g.log_mstar >= @minLogMstar OR g.log_mhalo >= @minLogMhalo
+           OR (g.log_mstar IS NULL AND g.log_mhalo IS NULL) OR p.physical_key IS NOT NULL)`
+      : '';
+    // CROSS JOIN keeps the ranges as the outer loop: one index seek per range, then a contiguous
+    // scan of the clustered table; the z and Dec terms are tested on each row before the join.
+    stmt = db
+      .prepare(
+        `WITH r (lo, hi) AS (VALUES ${values})
+         SELECT ${SCAN_COLUMNS}
+         FROM r CROSS JOIN galaxy g
+         LEFT JOIN physical_link p ON p.catalog_id = g.catalog_id AND p.object_id = g.object_id
+         WHERE g.catalog_id = @catalogId AND g.hpx BETWEEN r.lo AND r.hi
+           AND g.z BETWEEN @zMin AND @zMax AND g.dec_deg BETWEEN @decLoDeg AND @decHiDeg ${mass}`,
+      )
+      .raw(true);
+    byShape.set(key, stmt);
+  }
+  return stmt;
+}
+
+/**
+ * Raw rows (arrays of SCAN_COLUMNS) of one catalogue inside the given storage-order HEALPix ranges
+ * that pass the filter, in chunks of at most MAX_SCAN_RANGES ranges per statement.
+ */
+export function scanRanges(
+  db: Database.Database,
+  ranges: readonly PixelRange[],
+  filter: ScanFilter,
+  out: unknown[][],
+): void {
+  const named = {
+    catalogId: filter.catalogId,
+    zMin: filter.zMin,
+    zMax: filter.zMax,
+    decLoDeg: filter.decLoDeg,
+    decHiDeg: filter.decHiDeg,
+    ...(filter.mass ?? {}),
+  };
+  for (let start = 0; start < ranges.length; start += MAX_SCAN_RANGES) {
+    const chunk = ranges.slice(start, start + MAX_SCAN_RANGES);
+    const flat: number[] = [];
+    for (const [lo, hi] of chunk) flat.push(lo, hi);
+    const rows = scanStatement(db, chunk.length, filter.mass !== undefined).all(...flat, named);
+    for (const r of rows) out.push(r as unknown[]);
+  }
+}
