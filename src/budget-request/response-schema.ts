@@ -33,6 +33,13 @@ export const redshiftLimitSchema = z
       .number()
       .nullable()
       .describe('Largest z_s with P(DM_host ≥ 0) ≥ confidence; null if even the lowest z fails'),
+    z_upper: z
+      .number()
+      .nullable()
+      .describe(
+        'Conservative upper bound: largest z_s with P(DM_host ≥ 0) ≥ 1 − confidence (beyond it a ' +
+          'non-negative host term is excluded at the chosen confidence); always ≥ z_max',
+      ),
     confidence: z.number(),
     p_negative_at_limit: z.number().nullable(),
     bracketed: z.boolean().describe('false when the limit hit an end of the search range'),

@@ -127,6 +127,7 @@ function withoutRedshift(
     p_negative_host: null,
     redshift_limit: {
       z_max: limit.z_max,
+      z_upper: limit.z_upper,
       confidence: limit.confidence,
       p_negative_at_limit: limit.p_negative_at_limit,
       bracketed: limit.bracketed,

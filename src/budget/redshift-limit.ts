@@ -17,6 +17,12 @@ export interface RedshiftLimit {
   /** Largest z_s with P(DM_host ≥ 0) ≥ confidence; null if even zMin fails; zMax if never reached. */
   z_max: number | null;
   confidence: number;
+  /**
+   * Conservative upper bound: the largest z_s with P(DM_host ≥ 0) ≥ 1 − confidence, i.e. beyond it the
+   * observed DM cannot be made up with a non-negative host term at the chosen confidence. null if even
+   * zMin fails; zMax if never reached. Always ≥ z_max.
+   */
+  z_upper: number | null;
   /** P(DM_host < 0) at z_max (should equal 1 − confidence when bracketed). */
   p_negative_at_limit: number | null;
   bracketed: boolean;
@@ -53,27 +59,30 @@ export function maxSourceRedshift(input: RedshiftLimitInput): RedshiftLimit {
     for (let i = 0; i < residual.length; i++) s += residual[i] <= 0 ? 1 : 1 - pdf.cdf(residual[i] / m);
     return s / residual.length;
   };
+  /** Largest z in [zMin, zMax] with P(DM_host < 0) ≤ target (P rises with z), by Brent. */
+  const solve = (target: number): { z: number | null; bracketed: boolean; pLo: number } => {
+    const pLo = pNegative(zMin);
+    if (pLo > target) return { z: null, bracketed: false, pLo };
+    if (pNegative(zMax) < target) return { z: zMax, bracketed: false, pLo };
+    return { z: brentRoot((z) => pNegative(z) - target, zMin, zMax, { xtol: 1e-6 }), bracketed: true, pLo };
+  };
   const alpha = 1 - confidence;
-  const pLo = pNegative(zMin);
-  const pHi = pNegative(zMax);
-  let zLimit: number | null;
-  let bracketed = false;
-  if (pLo > alpha) {
-    zLimit = null;
+  const lower = solve(alpha);
+  const zLimit = lower.z;
+  const bracketed = lower.bracketed;
+  if (zLimit === null) {
     warnings.push(
-      `P(DM_host < 0) = ${pLo.toFixed(3)} already at z = ${zMin}: the Galactic and halo terms leave no room for a cosmic term at this confidence`,
+      `P(DM_host < 0) = ${lower.pLo.toFixed(3)} already at z = ${zMin}: the Galactic and halo terms leave no room for a cosmic term at this confidence`,
     );
-  } else if (pHi < alpha) {
-    zLimit = zMax;
+  } else if (!bracketed) {
     warnings.push(
       `DM_host ≥ 0 holds at ${confidence} confidence up to the search limit z = ${zMax}; the true bound is higher`,
     );
-  } else {
-    zLimit = brentRoot((z) => pNegative(z) - alpha, zMin, zMax, { xtol: 1e-6 });
-    bracketed = true;
   }
+  const upper = solve(confidence);
   return {
     z_max: zLimit,
+    z_upper: upper.z,
     confidence,
     p_negative_at_limit: zLimit === null ? null : pNegative(zLimit),
     bracketed,

@@ -56,6 +56,11 @@ function redshiftRows(b: BudgetResponse): string[] {
     '',
     'No source redshift given:',
     `  redshift limit      ${limit}`,
+    `  upper bound         ${
+      l.z_upper === null
+        ? 'none (see warnings)'
+        : `z_s ≤ ${l.z_upper.toFixed(4)} at ${l.confidence} confidence (beyond it P(DM_host ≥ 0) < ${(1 - l.confidence).toFixed(2)})`
+    }`,
     `  z_s posterior       median ${p.median.toFixed(3)}, 68 % interval ${p.interval68[0].toFixed(3)}–${p.interval68[1].toFixed(3)}, mode ${p.mode.toFixed(3)}`,
     `  prior               ${p.prior}`,
     `  host prior          median ${p.host_prior.median_pc_cm3} pc cm⁻³, σ_ln ${p.host_prior.sigma_ln} (${p.host_prior.frame})`,

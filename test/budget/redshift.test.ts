@@ -49,6 +49,23 @@ describe('largest source redshift with DM_host ≥ 0', () => {
     expectClose(1 - pdf.cdf(560 / mean.meanDmPcCm3(lim)), 0.05, { rtol: 1e-6 });
   });
 
+  it('gives a conservative upper bound where exactly 5 % of the Macquart PDF still fits under the residual', () => {
+    // Same fixed terms as above: at z_upper, P(⟨DM⟩(z) Δ ≤ R) = 0.05, i.e. P(DM_host ≥ 0) = 1 − 0.95.
+    const fixed = {
+      dmObs: 650,
+      dmObsErr: 0,
+      dmIsm: 40,
+      dmIsmErr: 0,
+      dmMwHalo: { mean: 50, err: 0 },
+      cosmology,
+    };
+    const lim = maxSourceRedshift({ ...fixed, budgetModel: { cosmic_mode: 'full' } });
+    const mean = createMacquartMean(cosmology, { fd: 0.844 });
+    const zUpper = lim.z_upper!;
+    expect(zUpper).toBeGreaterThan(lim.z_max!);
+    expectClose(createCosmicPdf(0.32, zUpper).cdf(560 / mean.meanDmPcCm3(zUpper)), 0.05, { rtol: 1e-6 });
+  });
+
   it('returns null with a warning when the Galactic terms alone exceed the observed DM', () => {
     const lim = maxSourceRedshift({ ...obs, dmObs: 60 });
     expect(lim.z_max).toBeNull();
