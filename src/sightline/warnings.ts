@@ -23,7 +23,7 @@ export function sightlineWarnings(input: {
       code: 'cosmic_double_counting',
       message:
         'The mean cosmic DM (Macquart relation with f_d ≈ 0.84) already contains the average halo gas; ' +
-        'adding these haloes on top of the full mean counts them twice on average (physics.md §7.1).',
+        'adding these haloes on top of the full mean counts them twice on average (see cosmic_mode in the budget).',
     },
   ];
   const shmr = input.galaxies.filter((g) => g.mode === 'shmr');
