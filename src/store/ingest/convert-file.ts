@@ -6,7 +6,11 @@ import { type ColumnMapping, resolveMapping } from './mapping.js';
 import { openTable, type SourceFormat } from './open-table.js';
 import { MAX_REPORTED_PROBLEMS, ProblemLog, type RowProblem } from './problems.js';
 import { createRowConverter, type IngestDefaults, type StagedRow } from './row-converter.js';
+import { createBatchBuilder, type StagedBatch } from './staged-batch.js';
 import { guessMassUnit, type MassUnit, massUnitFromString } from './units.js';
+
+/** Source rows read and converted per slice (see convertFile). */
+const READ_ROWS = 1000;
 
 /** Everything needed to turn a catalogue file into staged rows (plain data: it crosses to a worker). */
 export interface ConvertInput {
@@ -49,8 +53,8 @@ export interface ConvertEnd {
 
 export interface ConvertSink {
   header(h: ConvertHeader): void;
-  /** Good rows of one batch (empty once problems are found without skipInvalid). */
-  batch(rows: StagedRow[], rowsRead: number): void | Promise<void>;
+  /** Good rows of one batch (empty once problems are found without skipInvalid); the sink owns it. */
+  batch(rows: StagedBatch, rowsRead: number): void | Promise<void>;
 }
 
 /**
@@ -72,14 +76,28 @@ export async function convertFile(input: ConvertInput, sink: ConvertSink): Promi
     const mapping = resolveMapping(table.columns, input.explicitMap);
     const cosmology = createCosmology('planck18');
     let convert: ((row: SourceRow) => StagedRow | null) | undefined;
-    for await (const batch of table.batches(input.batchSize)) {
-      if (!convert) {
+    // Rows are read in small slices and converted at once, so the parsed cells die young in the
+    // V8 heap; converted rows collect in columns and go to the sink batchSize source rows at a time.
+    const rows = table.batches(Math.min(READ_ROWS, input.batchSize))[Symbol.asyncIterator]();
+    try {
+      // The mass unit is guessed from the first batchSize rows, as they come.
+      const first: SourceRow[] = [];
+      let ended = false;
+      while (first.length < input.batchSize) {
+        const next = await rows.next();
+        if (next.done) {
+          ended = true;
+          break;
+        }
+        for (const row of next.value) first.push(row);
+      }
+      if (first.length > 0) {
         const warnings: string[] = [];
         const { massUnit, massUnitHow } = chooseMassUnit(
           input.defaults.massUnit,
           mapping.index.log_mstar,
           table.columns,
-          batch,
+          first,
           warnings,
         );
         sink.header({
@@ -102,18 +120,35 @@ export async function convertFile(input: ConvertInput, sink: ConvertSink): Promi
           counts,
         });
       }
-      const good: StagedRow[] = [];
-      for (const row of batch) {
-        const r = convert(row);
-        if (r) good.push(r);
+      const good = createBatchBuilder(input.batchSize);
+      let readSinceFlush = 0;
+      /** Hand the batch to the sink; true when reading should stop (problems and no skipInvalid). */
+      const flush = async (): Promise<boolean> => {
+        const rejecting = log.count > 0 && !input.skipInvalid;
+        const batch = good.take();
+        readSinceFlush = 0;
+        await sink.batch(rejecting ? createBatchBuilder(0).take() : batch, rowsRead);
+        return rejecting && log.problems.length >= MAX_REPORTED_PROBLEMS;
+      };
+      const convertSlice = async (slice: readonly SourceRow[]): Promise<boolean> => {
+        for (const row of slice) {
+          const r = convert!(row);
+          if (r) good.push(r);
+          rowsRead++;
+          if (++readSinceFlush === input.batchSize && (await flush())) return true;
+        }
+        return false;
+      };
+      stopped = convert !== undefined && (await convertSlice(first));
+      first.length = 0;
+      while (!stopped && !ended) {
+        const next = await rows.next();
+        if (next.done) break;
+        stopped = await convertSlice(next.value);
       }
-      rowsRead += batch.length;
-      const rejecting = log.count > 0 && !input.skipInvalid;
-      await sink.batch(rejecting ? [] : good, rowsRead);
-      if (rejecting && log.problems.length >= MAX_REPORTED_PROBLEMS) {
-        stopped = true;
-        break;
-      }
+      if (!stopped && readSinceFlush > 0) await flush();
+    } finally {
+      await rows.return?.();
     }
     if (!convert) {
       // Header but no rows: still tell the caller what the header meant.

@@ -24,7 +24,8 @@ try {
     batch: async (rows, rowsRead) => {
       while (credits === 0) await new Promise<void>((r) => (wake = r));
       credits--;
-      port.postMessage({ type: 'batch', rows, rowsRead });
+      // The number and code buffers are transferred, not copied.
+      port.postMessage({ type: 'batch', rows, rowsRead }, [rows.numbers.buffer, rows.codes.buffer]);
     },
   });
   port.postMessage({ type: 'end', end });

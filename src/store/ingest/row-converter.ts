@@ -114,7 +114,10 @@ export interface ConverterContext {
 /** Sentinel for "cell had a problem" (distinct from null = empty cell). */
 const BAD = Symbol('bad');
 
-/** Build the function that checks and converts one source row (null when the row has problems). */
+/**
+ * Build the function that checks and converts one source row (null when the row has problems). The
+ * returned array is reused for the next row: copy it before converting another.
+ */
 export function createRowConverter(ctx: ConverterContext): (row: SourceRow) => StagedRow | null {
   const { mapping, columns, positionKind, defaults, problems, counts } = ctx;
   const at = (f: Field) => mapping.index[f] ?? -1;
@@ -197,6 +200,15 @@ export function createRowConverter(ctx: ConverterContext): (row: SourceRow) => S
     }
     return x * scale;
   }
+  function mag(i: number): number | null {
+    return inRange(
+      ok(num(i, Number.NEGATIVE_INFINITY)),
+      i,
+      LIMITS.mag[0],
+      LIMITS.mag[1],
+      "an apparent AB magnitude (is it a 'no data' sentinel?)",
+    );
+  }
   function inRange(x: number | null, i: number, lo: number, hi: number, what: string): number | null {
     if (x !== null && (x < lo || x > hi)) {
       problem(i, '', `${what} must be within ${lo}–${hi}`);
@@ -205,6 +217,7 @@ export function createRowConverter(ctx: ConverterContext): (row: SourceRow) => S
     return x;
   }
 
+  const out: StagedRow = [0, '', 0, 0, 0, null, 'spec', null, null, 0, null, null, null, null, null, null, 0];
   return (row: SourceRow): StagedRow | null => {
     values = row.values;
     position = row.position;
@@ -308,14 +321,6 @@ export function createRowConverter(ctx: ConverterContext): (row: SourceRow) => S
       }
     }
     logMstar = inRange(logMstar, iM, LIMITS.logMstar[0], LIMITS.logMstar[1], 'log10(M* / M☉)');
-    const mag = (i: number) =>
-      inRange(
-        ok(num(i, Number.NEGATIVE_INFINITY)),
-        i,
-        LIMITS.mag[0],
-        LIMITS.mag[1],
-        "an apparent AB magnitude (is it a 'no data' sentinel?)",
-      );
     const gMag = iG < 0 ? null : mag(iG);
     const iMag = iI < 0 ? null : mag(iI);
     let logMhalo: number | null = null;
@@ -382,24 +387,24 @@ export function createRowConverter(ctx: ConverterContext): (row: SourceRow) => S
       problems.badRows++;
       return null;
     }
-    return [
-      ang2pixNest(STORAGE_ORDER, raDeg, decDeg),
-      id,
-      raDeg,
-      decDeg,
-      z,
-      zErr,
-      zKind,
-      logMstar,
-      logMstarErr,
-      massEstimated,
-      gMag,
-      iMag,
-      logMhalo,
-      mhaloDef,
-      logMhaloErr,
-      iGrp < 0 ? null : cellText(values[iGrp]),
-      position,
-    ];
+    // The same array is filled for every row: the caller copies it into a StagedBatch at once.
+    out[0] = ang2pixNest(STORAGE_ORDER, raDeg, decDeg);
+    out[1] = id;
+    out[2] = raDeg;
+    out[3] = decDeg;
+    out[4] = z;
+    out[5] = zErr;
+    out[6] = zKind;
+    out[7] = logMstar;
+    out[8] = logMstarErr;
+    out[9] = massEstimated;
+    out[10] = gMag;
+    out[11] = iMag;
+    out[12] = logMhalo;
+    out[13] = mhaloDef;
+    out[14] = logMhaloErr;
+    out[15] = iGrp < 0 ? null : cellText(values[iGrp]);
+    out[16] = position;
+    return out;
   };
 }

@@ -1,5 +1,11 @@
 import type Database from 'better-sqlite3';
-import type { StagedRow } from './row-converter.js';
+import {
+  CODE_COLUMNS,
+  MHALO_DEF_CODES,
+  NUMBER_COLUMNS,
+  type StagedBatch,
+  Z_KIND_CODES,
+} from './staged-batch.js';
 
 let counter = 0;
 
@@ -19,8 +25,33 @@ export function createStage(db: Database.Database) {
   const insert = db.prepare(
     `INSERT INTO ${table} VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)`,
   );
-  const insertMany = db.transaction((rows: StagedRow[]) => {
-    for (const r of rows) insert.run(r);
+  // One transaction per batch; a NaN number binds as NULL (see StagedBatch).
+  const insertMany = db.transaction((b: StagedBatch) => {
+    const n = b.numbers;
+    const c = b.codes;
+    for (let i = 0; i < b.length; i++) {
+      const o = i * NUMBER_COLUMNS;
+      const k = i * CODE_COLUMNS;
+      insert.run(
+        n[o],
+        b.ids[i],
+        n[o + 1],
+        n[o + 2],
+        n[o + 3],
+        n[o + 4],
+        Z_KIND_CODES[c[k]],
+        n[o + 5],
+        n[o + 6],
+        c[k + 1],
+        n[o + 7],
+        n[o + 8],
+        n[o + 9],
+        MHALO_DEF_CODES[c[k + 2]],
+        n[o + 10],
+        b.groupIds[i],
+        n[o + 11],
+      );
+    }
   });
   return {
     table,

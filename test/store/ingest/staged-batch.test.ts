@@ -1,0 +1,71 @@
+import { describe, expect, it } from 'vitest';
+import type { StagedRow } from '../../../src/store/ingest/row-converter.js';
+import { createStage } from '../../../src/store/ingest/stage.js';
+import { createBatchBuilder } from '../../../src/store/ingest/staged-batch.js';
+import { useTmp } from '../tmp.js';
+
+describe('staged batches', () => {
+  const tmp = useTmp();
+
+  it('carry every value of a row, including NULLs, codes and ids, into the staging table unchanged', () => {
+    const rows: StagedRow[] = [
+      [
+        123456789,
+        'a,1',
+        10.5,
+        -20.25,
+        0.1,
+        null,
+        'spec',
+        10.2,
+        0.1,
+        0,
+        null,
+        null,
+        null,
+        null,
+        null,
+        null,
+        2,
+      ],
+      [5, 'b', 359.999999, 90, 0, 0.03, 'photo', null, null, 1, 21.5, 20.1, 13.2, '200m', 0.2, 'grp-7', 3],
+      [0, 'c', 0, -90, 1.5, 0.001, 'spec', 9, 0.3, 0, 18, 17, 14.5, 'vir', null, 'c', 805306367],
+    ];
+    const builder = createBatchBuilder(4);
+    for (const r of rows) builder.push(r);
+    const batch = builder.take();
+    expect(batch.length).toBe(3);
+    expect(builder.length).toBe(0);
+    const store = tmp.store();
+    const stage = createStage(store.db);
+    stage.insertMany(batch);
+    const back = store.db.prepare(`SELECT * FROM ${stage.table} ORDER BY rowid`).raw(true).all();
+    expect(back).toEqual(rows.map((r) => [...r]));
+    stage.drop();
+  });
+
+  it('refuse a row beyond their capacity', () => {
+    const builder = createBatchBuilder(1);
+    const row: StagedRow = [
+      1,
+      'x',
+      1,
+      1,
+      0.1,
+      null,
+      'spec',
+      10,
+      null,
+      0,
+      null,
+      null,
+      null,
+      null,
+      null,
+      null,
+      2,
+    ];
+    builder.push(row);
+    expect(() => builder.push(row)).toThrow(/full/);
+  });
+});
