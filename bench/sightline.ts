@@ -135,7 +135,7 @@ if (!isMainThread) {
 
     const jobs = sightlines(count, 7);
     runJobs(dbPath, sightlines(5, 99)); // warm-up: kit tables are built once per model
-    const timings: SightlineTimings = { search: 0, halo: 0, monteCarlo: 0, summary: 0 };
+    const timings: SightlineTimings = { search: 0, queries: 0, halo: 0, monteCarlo: 0, summary: 0 };
     const run = runJobs(dbPath, jobs, timings);
     const times = [...run.total].sort((a, b) => a - b);
     const engine = run.total.map((t, i) => t - run.store[i]).sort((a, b) => a - b);

@@ -14,6 +14,16 @@ export {
 export { B_FLOOR_KPC, type PreparedGalaxy, prepareGalaxy } from './prepare.js';
 export { sampleVariance, varianceReductionByBinning } from './priorities.js';
 export {
+  type ConeWindow,
+  type DensityEstimate,
+  estimateDensity,
+  expectedRows,
+  mergeWindows,
+  probeShellIndex,
+  QUERY_COST_ROWS,
+  unionWindow,
+} from './query-plan.js';
+export {
   PHOTO_Z_SIGMA0_FALLBACK,
   redshiftSigma,
   searchRedshiftRange,
@@ -37,6 +47,7 @@ export {
 } from './schemas.js';
 export {
   type Candidate,
+  type FetchOptions,
   fetchShells,
   findCandidates,
   planShells,

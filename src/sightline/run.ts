@@ -28,11 +28,15 @@ export interface SightlineDeps {
   readonly kits?: KitProvider;
   /** If given, wall-clock milliseconds per phase are added to it (benchmarks). */
   readonly timings?: SightlineTimings;
+  /** Fixed cost of one store query in returned rows (query-plan.ts; default QUERY_COST_ROWS; 0 = one query per shell). */
+  readonly queryCostRows?: number;
 }
 
 /** Accumulated wall time per phase [ms]: candidate search (incl. the store), halo model, Monte Carlo, summaries. */
 export interface SightlineTimings {
   search: number;
+  /** Store queries made (not a time). */
+  queries: number;
   halo: number;
   monteCarlo: number;
   summary: number;
@@ -104,14 +108,22 @@ export function runSightline(deps: SightlineDeps, request: unknown): SightlineRe
   const zSourceHi = zSource + model.photo_z_k * zSourceErr;
   const clock = deps.timings ? () => performance.now() : () => 0;
   let t0 = clock();
-  const search = findCandidates(deps.coneSearch, kit, {
-    raDeg: req.ra,
-    decDeg: req.dec,
-    zSourceHi,
-    catalogs: req.catalogs,
-  });
+  const search = findCandidates(
+    deps.coneSearch,
+    kit,
+    {
+      raDeg: req.ra,
+      decDeg: req.dec,
+      zSourceHi,
+      catalogs: req.catalogs,
+    },
+    { queryCostRows: deps.queryCostRows },
+  );
   let t1 = clock();
-  if (deps.timings) deps.timings.search += t1 - t0;
+  if (deps.timings) {
+    deps.timings.search += t1 - t0;
+    deps.timings.queries += search.queries;
+  }
   t0 = t1;
   const cls = classifyCandidates(search.candidates, kit, zSource, zSourceErr, req.host_id);
   const ctx = { zSource, zSourceErr };
@@ -121,7 +133,13 @@ export function runSightline(deps: SightlineDeps, request: unknown): SightlineRe
   const prepared = canonical.map((f) => prepareGalaxy(f.cand, kit, ctx, f.countable));
   for (const g of prepared) {
     const dups = search.duplicates.get(g.cand.row);
-    if (dups) g.flags.push(`duplicates_merged:${dups.map((d) => `${d.catalog}/${d.objectId}`).join(',')}`);
+    if (dups)
+      g.flags.push(
+        `duplicates_merged:${dups
+          .map((d) => `${d.catalog}/${d.objectId}`)
+          .sort()
+          .join(',')}`,
+      );
   }
   t1 = clock();
   if (deps.timings) deps.timings.halo += t1 - t0;
@@ -156,7 +174,11 @@ export function runSightline(deps: SightlineDeps, request: unknown): SightlineRe
   ranked.sort((a, b) => b.var_reduction_pc2_cm6 - a.var_reduction_pc2_cm6);
   const priorities = ranked.slice(0, model.priorities_top).map((p, k) => ({ rank: k + 1, ...p }));
 
-  const environment: EnvironmentEntry[] = cls.environment.map(({ cand, isHost }) => {
+  // Nearest first (then by id): the listing does not depend on how the store queries were grouped.
+  const nearestFirst = [...cls.environment].sort(
+    (a, b) => a.cand.sepRad - b.cand.sepRad || compareRows(a.cand.row, b.cand.row),
+  );
+  const environment: EnvironmentEntry[] = nearestFirst.map(({ cand, isHost }) => {
     const r = cand.row;
     const bKpc = cand.sepRad * kit.angularDiameterDistanceKpc(r.z);
     const rHalo = haloRadiusFromDensity(10 ** cand.halo.logMhalo, kit.haloDensityMsunKpc3(r.z));

@@ -3,6 +3,13 @@ import { separationRad } from '../sky/index.js';
 import { type CentralHalo, centralHalo } from './central-halo.js';
 import { resolveDuplicates } from './duplicates.js';
 import { type HaloKit, haloRadiusFromDensity } from './kit.js';
+import {
+  type ConeWindow,
+  estimateDensity,
+  mergeWindows,
+  probeShellIndex,
+  QUERY_COST_ROWS,
+} from './query-plan.js';
 import { searchRedshiftRange, velocityWindowDz } from './redshift-range.js';
 import type { CatalogRow, ConeSearchFn } from './types.js';
 
@@ -84,28 +91,71 @@ function maxAngleRad(kit: HaloKit, zLo: number, zHi: number, logM = kit.model.lo
 export function planShells(kit: HaloKit, zSourceHi: number): SearchShell[] {
   const m = kit.model;
   const zMax = queryZMax(kit, zSourceHi);
-  const tierLog = Math.min(TIER_LOG_MHALO, m.log_mhalo_max);
+  if (!(m.z_min < zMax)) return [];
+  const grid = shellGrid(kit, zMax);
   const all: SearchShell[] = [];
   const massive: SearchShell[] = [];
-  let lo = m.z_min;
-  while (lo < zMax) {
-    const hi = Math.min(zMax, lo * SHELL_RATIO, lo + SHELL_MAX_WIDTH);
-    all.push(shellCone(kit, lo, hi, tierLog));
-    if (tierLog < m.log_mhalo_max) {
-      // Smallest log M* that maps to a native halo mass ≥ 10^(tier − margin) anywhere in [lo, hi].
-      const native = tierLog - TIER_MARGIN_DEX;
-      let minLogMstar = Number.POSITIVE_INFINITY;
-      for (let k = 0; k <= 4; k++)
-        minLogMstar = Math.min(minLogMstar, kit.shmrLogMstar(native, lo + ((hi - lo) * k) / 4));
-      massive.push({
-        ...shellCone(kit, lo, hi, m.log_mhalo_max),
-        minLogMstar: minLogMstar - 0.05,
-        minLogMhalo: tierLog - TIER_MARGIN_DEX,
-      });
+  for (const g of grid.shells) {
+    if (g.hi > zMax) {
+      // The last shell ends at zMax: computed afresh (zMax moves with every source redshift).
+      const last = gridShell(kit, g.lo, zMax);
+      all.push(last.all);
+      if (last.massive) massive.push(last.massive);
+      break;
     }
-    lo = hi;
+    all.push(g.all);
+    if (g.massive) massive.push(g.massive);
+    if (g.hi === zMax) break;
   }
   return [...mergeShells(all), ...mergeShells(massive)];
+}
+
+interface GridShell {
+  readonly lo: number;
+  readonly hi: number;
+  readonly all: SearchShell;
+  readonly massive?: SearchShell;
+}
+
+/** The full-width shells of one kit, in z order; extended on demand, kept with the kit (they never change). */
+const gridCache = new WeakMap<HaloKit, { shells: GridShell[] }>();
+
+function shellGrid(kit: HaloKit, zMax: number): { shells: GridShell[] } {
+  let grid = gridCache.get(kit);
+  if (!grid) {
+    grid = { shells: [] };
+    gridCache.set(kit, grid);
+  }
+  const shells = grid.shells;
+  let lo = shells.length > 0 ? shells[shells.length - 1].hi : kit.model.z_min;
+  // Extend until a full shell reaches past zMax (the last one is then recomputed to end at zMax).
+  while (shells.length === 0 || shells[shells.length - 1].hi < zMax) {
+    const hi = Math.min(lo * SHELL_RATIO, lo + SHELL_MAX_WIDTH);
+    shells.push({ lo, hi, ...gridShell(kit, lo, hi) });
+    lo = hi;
+  }
+  return grid;
+}
+
+/** Both tiers' cones of the shell [lo, hi]. */
+function gridShell(kit: HaloKit, lo: number, hi: number): { all: SearchShell; massive?: SearchShell } {
+  const m = kit.model;
+  const tierLog = Math.min(TIER_LOG_MHALO, m.log_mhalo_max);
+  const all = shellCone(kit, lo, hi, tierLog);
+  if (!(tierLog < m.log_mhalo_max)) return { all };
+  // Smallest log M* that maps to a native halo mass ≥ 10^(tier − margin) anywhere in [lo, hi].
+  const native = tierLog - TIER_MARGIN_DEX;
+  let minLogMstar = Number.POSITIVE_INFINITY;
+  for (let k = 0; k <= 4; k++)
+    minLogMstar = Math.min(minLogMstar, kit.shmrLogMstar(native, lo + ((hi - lo) * k) / 4));
+  return {
+    all,
+    massive: {
+      ...shellCone(kit, lo, hi, m.log_mhalo_max),
+      minLogMstar: minLogMstar - 0.05,
+      minLogMhalo: tierLog - TIER_MARGIN_DEX,
+    },
+  };
 }
 
 /** The cone of one shell for haloes up to 10^logM: spectroscopic and photometric reach, capped. */
@@ -178,6 +228,8 @@ export function selectCandidate(
 export interface SearchResult {
   readonly candidates: Candidate[];
   readonly shells: SearchShell[];
+  /** Store queries made (planned shells after merging, query-plan.ts). */
+  readonly queries: number;
   /** Distinct rows returned by the store over all shells (before duplicates and the exact selection). */
   readonly rowsScanned: number;
   /** Rows in the cones that had neither a stellar nor a halo mass. */
@@ -186,35 +238,60 @@ export interface SearchResult {
   readonly duplicates: Map<CatalogRow, CatalogRow[]>;
 }
 
-/** Query the store shell by shell and return the distinct rows (by catalogue + id) in z range. */
+/** How findCandidates groups its store queries. */
+export interface FetchOptions {
+  /** Fixed cost of one query in returned rows (see QUERY_COST_ROWS); 0 keeps every planned shell apart. */
+  readonly queryCostRows?: number;
+}
+
+/**
+ * Query the store and return the distinct rows (by catalogue + id), each within the z range of the
+ * query that returned it. The unhinted shell expected to hold most rows is queried first, as planned;
+ * its rows estimate the surface density, from which the remaining shells are merged into fewer, wider
+ * queries where that is cheaper (query-plan.ts). Every merged query covers its shells, so the rows
+ * the exact selection keeps do not depend on the merging.
+ */
 export function fetchShells(
   coneSearch: ConeSearchFn,
   target: SearchTarget,
   shells: readonly SearchShell[],
-): CatalogRow[] {
+  options: FetchOptions = {},
+): { rows: CatalogRow[]; queries: number } {
   const seen = new Set<string>();
   const out: CatalogRow[] = [];
-  for (const shell of shells) {
+  const run = (w: ConeWindow): readonly CatalogRow[] => {
     const rows = coneSearch({
       raDeg: target.raDeg,
       decDeg: target.decDeg,
-      radiusDeg: shell.radiusDeg,
+      radiusDeg: w.radiusDeg,
       catalogs: target.catalogs,
-      zMin: shell.zLo,
-      zMax: shell.zHi,
-      ...(shell.minLogMstar !== undefined
-        ? { minLogMstar: shell.minLogMstar, minLogMhalo: shell.minLogMhalo }
-        : {}),
+      zMin: w.zLo,
+      zMax: w.zHi,
+      ...(w.minLogMstar !== undefined ? { minLogMstar: w.minLogMstar, minLogMhalo: w.minLogMhalo } : {}),
     });
     for (const row of rows) {
-      if (row.z < shell.zLo || row.z > shell.zHi) continue;
+      if (row.z < w.zLo || row.z > w.zHi) continue;
       const key = `${row.catalog}\u0000${row.objectId}`;
       if (seen.has(key)) continue;
       seen.add(key);
       out.push(row);
     }
+    return rows;
+  };
+  const costRows = options.queryCostRows ?? QUERY_COST_ROWS;
+  const probe = shells.length > 2 && costRows > 0 ? probeShellIndex(shells) : -1;
+  if (probe < 0) {
+    for (const s of shells) run(s);
+    return { rows: out, queries: shells.length };
   }
-  return out;
+  const estimate = estimateDensity(shells[probe], run(shells[probe]));
+  const rest = mergeWindows(
+    shells.filter((_, i) => i !== probe),
+    estimate,
+    costRows,
+  );
+  for (const w of rest) run(w);
+  return { rows: out, queries: 1 + rest.length };
 }
 
 /**
@@ -223,10 +300,15 @@ export function fetchShells(
  * A duplicate whose preferred twin lies outside every shell's redshift range is not seen and cannot
  * overrule (documented limitation).
  */
-export function findCandidates(coneSearch: ConeSearchFn, kit: HaloKit, target: SearchTarget): SearchResult {
+export function findCandidates(
+  coneSearch: ConeSearchFn,
+  kit: HaloKit,
+  target: SearchTarget,
+  options: FetchOptions = {},
+): SearchResult {
   const shells = planShells(kit, target.zSourceHi);
   const zFrontMax = target.zSourceHi + velocityWindowDz(target.zSourceHi, kit.model.velocity_window_kms);
-  const rows = fetchShells(coneSearch, target, shells);
+  const { rows, queries } = fetchShells(coneSearch, target, shells, options);
   const { kept, dropped } = resolveDuplicates(rows);
   const candidates: Candidate[] = [];
   let rowsWithoutMass = 0;
@@ -238,5 +320,5 @@ export function findCandidates(coneSearch: ConeSearchFn, kit: HaloKit, target: S
     const cand = selectCandidate(row, target, kit, zFrontMax);
     if (cand) candidates.push(cand);
   }
-  return { candidates, shells, rowsScanned: rows.length, rowsWithoutMass, duplicates: dropped };
+  return { candidates, shells, queries, rowsScanned: rows.length, rowsWithoutMass, duplicates: dropped };
 }

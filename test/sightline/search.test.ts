@@ -7,6 +7,7 @@ import {
   findCandidates,
   type HaloKit,
   planShells,
+  QUERY_COST_ROWS,
   resolveDuplicates,
   type SearchTarget,
   selectCandidate,
@@ -86,11 +87,13 @@ describe('candidate search', () => {
         sightline,
         fc.array(galaxy, { minLength: 1, maxLength: 30 }),
         fc.nat(KITS.length - 1),
-        (s, gals, k) => {
+        // Query grouping: one query per shell, the default cost model, and everything merged.
+        fc.constantFrom(0, QUERY_COST_ROWS, 1e12),
+        (s, gals, k, queryCostRows) => {
           const kit = KITS[k];
           const rows = buildRows(s, gals);
           const target: SearchTarget = { raDeg: s.raDeg, decDeg: s.decDeg, zSourceHi: s.zSource };
-          const viaShells = findCandidates(bruteCone(rows), kit, target);
+          const viaShells = findCandidates(bruteCone(rows), kit, target, { queryCostRows });
           const zFrontMax = s.zSource + velocityWindowDz(s.zSource, kit.model.velocity_window_kms);
           const brute = resolveDuplicates(rows)
             .kept.map((r) => selectCandidate(r, target, kit, zFrontMax))
@@ -120,6 +123,29 @@ describe('candidate search', () => {
     // The massive tier's cones are wider, and only for rows that could hold a halo above 10^12.5 M☉.
     expect(massive.at(-1)!.radiusDeg).toBeGreaterThan(allRows.at(-1)!.radiusDeg);
     expect(massive[0].minLogMhalo).toBe(12.5);
+  });
+
+  it('plans the same shells whether or not the kit has planned shells before', () => {
+    // planShells keeps the full-width shells with the kit; a fresh kit recomputes them all.
+    for (const zs of [0.05, 0.8, 0.3, 2.5, 0.8]) {
+      const used = planShells(KITS[0], zs);
+      const fresh = planShells(createHaloKit(parseModel({})), zs);
+      expect(used).toEqual(fresh);
+    }
+  });
+
+  it('makes one query per planned shell at cost 0 and fewer on a sparse catalogue', () => {
+    const kit = KITS[0];
+    const target: SearchTarget = { raDeg: 150, decDeg: 2, zSourceHi: 0.8 };
+    const planned = planShells(kit, 0.8).length;
+    const calls: unknown[] = [];
+    const none = findCandidates(bruteCone([], calls as never), kit, target, { queryCostRows: 0 });
+    expect(none.queries).toBe(planned);
+    expect(calls).toHaveLength(planned);
+    // An empty sky: the probe finds nothing, so the remaining shells fold into one query.
+    const sparse = findCandidates(bruteCone([]), kit, target);
+    expect(planned).toBeGreaterThan(4);
+    expect(sparse.queries).toBe(2);
   });
 
   it('keeps the spectroscopic twin of a cross-catalogue duplicate and drops the photometric one', () => {
