@@ -21,8 +21,8 @@ export interface ConeWindow {
 export interface DensityEstimate {
   /** Rows per deg² per unit redshift (all masses). */
   readonly rowsPerDeg2PerZ: number;
-  /** Fraction of rows a mass hint keeps (estimated on the probe's rows). */
-  passFraction(w: ConeWindow): number;
+  /** Fraction of rows a mass hint (log M* ≥ minLogMstar or log M_h ≥ minLogMhalo) keeps, from the probe's rows. */
+  passFraction(minLogMstar: number, minLogMhalo: number | undefined): number;
 }
 
 const areaDeg2 = (w: ConeWindow) => Math.PI * w.radiusDeg * w.radiusDeg;
@@ -30,7 +30,8 @@ const hinted = (w: ConeWindow) => w.minLogMstar !== undefined;
 
 /** Expected number of rows a window returns under the estimate (flat in z inside the window). */
 export function expectedRows(w: ConeWindow, est: DensityEstimate): number {
-  return est.rowsPerDeg2PerZ * areaDeg2(w) * (w.zHi - w.zLo) * (hinted(w) ? est.passFraction(w) : 1);
+  const pass = hinted(w) ? est.passFraction(w.minLogMstar!, w.minLogMhalo) : 1;
+  return est.rowsPerDeg2PerZ * areaDeg2(w) * (w.zHi - w.zLo) * pass;
 }
 
 /** The smallest window that returns every row either window returns (wider cone, z hull, weaker hint). */
@@ -63,28 +64,40 @@ export function mergeWindows(
   queryCostRows = QUERY_COST_ROWS,
 ): ConeWindow[] {
   const out = [...windows];
-  const cost = (w: ConeWindow) => queryCostRows + expectedRows(w, est);
+  const cost = out.map((w) => queryCostRows + expectedRows(w, est));
   for (;;) {
     let best = 0;
     let bi = -1;
     let bj = -1;
-    let bw: ConeWindow | undefined;
     for (let i = 0; i < out.length; i++) {
       for (let j = i + 1; j < out.length; j++) {
-        const u = unionWindow(out[i], out[j]);
-        const saving = cost(out[i]) + cost(out[j]) - cost(u);
+        const saving = cost[i] + cost[j] - queryCostRows - unionRows(out[i], out[j], est);
         if (saving > best) {
           best = saving;
           bi = i;
           bj = j;
-          bw = u;
         }
       }
     }
-    if (!bw) return out;
-    out[bi] = bw;
+    if (bi < 0) return out;
+    out[bi] = unionWindow(out[bi], out[bj]);
+    cost[bi] = queryCostRows + expectedRows(out[bi], est);
     out.splice(bj, 1);
+    cost.splice(bj, 1);
   }
+}
+
+/** expectedRows(unionWindow(a, b)) without building the window (the inner loop of mergeWindows). */
+function unionRows(a: ConeWindow, b: ConeWindow, est: DensityEstimate): number {
+  const r = Math.max(a.radiusDeg, b.radiusDeg);
+  const dz = Math.max(a.zHi, b.zHi) - Math.min(a.zLo, b.zLo);
+  const base = est.rowsPerDeg2PerZ * Math.PI * r * r * dz;
+  if (!hinted(a) || !hinted(b)) return base;
+  const halo =
+    a.minLogMhalo !== undefined && b.minLogMhalo !== undefined
+      ? Math.min(a.minLogMhalo, b.minLogMhalo)
+      : undefined;
+  return base * est.passFraction(Math.min(a.minLogMstar!, b.minLogMstar!), halo);
 }
 
 /**
@@ -96,16 +109,24 @@ export function estimateDensity(probe: ConeWindow, rows: readonly CatalogRow[]):
   const inWindow = rows.filter((r) => r.z >= probe.zLo && r.z <= probe.zHi);
   const n = inWindow.length;
   const volume = Math.max(areaDeg2(probe) * (probe.zHi - probe.zLo), 1e-12);
+  // Hints take only a few distinct values (the shells' and their minima): remember each answer.
+  const known: number[] = [];
   return {
     rowsPerDeg2PerZ: (n + 1) / volume,
-    passFraction(w) {
+    passFraction(minLogMstar, minLogMhalo) {
+      const halo = minLogMhalo ?? Number.POSITIVE_INFINITY;
+      for (let i = 0; i < known.length; i += 3) {
+        if (known[i] === minLogMstar && known[i + 1] === halo) return known[i + 2];
+      }
       let k = 0;
       for (const r of inWindow) {
-        const byStar = r.logMstar !== null && r.logMstar >= w.minLogMstar!;
-        const byHalo = r.logMhalo != null && r.logMhalo >= (w.minLogMhalo ?? Number.POSITIVE_INFINITY);
+        const byStar = r.logMstar !== null && r.logMstar >= minLogMstar;
+        const byHalo = r.logMhalo != null && r.logMhalo >= halo;
         if (byStar || byHalo || (r.logMstar === null && r.logMhalo == null)) k++;
       }
-      return (k + 1) / (n + 2);
+      const f = (k + 1) / (n + 2);
+      known.push(minLogMstar, halo, f);
+      return f;
     },
   };
 }

@@ -98,6 +98,8 @@ describe('store query grouping', () => {
     const est = estimateDensity(probe, rows);
     expectClose(est.rowsPerDeg2PerZ, 4 / (Math.PI * 0.25 * 0.2), { rtol: 1e-12 });
     // Hint log M* ≥ 10.5: the 10^11 row and the massless row pass (the store keeps rows with no mass).
-    expectClose(est.passFraction({ ...probe, minLogMstar: 10.5, minLogMhalo: 12.5 }), 3 / 5, { rtol: 1e-12 });
+    expectClose(est.passFraction(10.5, 12.5), 3 / 5, { rtol: 1e-12 });
+    expectClose(est.passFraction(10.5, 12.5), 3 / 5, { rtol: 1e-12 }); // remembered answer
+    expectClose(est.passFraction(9, undefined), 4 / 5, { rtol: 1e-12 });
   });
 });
