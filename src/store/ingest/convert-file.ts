@@ -9,7 +9,7 @@ import { createRowConverter, type IngestDefaults, type StagedRow } from './row-c
 import { createBatchBuilder, type StagedBatch } from './staged-batch.js';
 import { guessMassUnit, type MassUnit, massUnitFromString } from './units.js';
 
-/** Source rows read and converted per slice (see convertFile). */
+/** Source rows read and converted per slice (see convertFile and READ_CHUNK_BYTES in readers/csv.ts). */
 const READ_ROWS = 1000;
 
 /** Everything needed to turn a catalogue file into staged rows (plain data: it crosses to a worker). */

@@ -16,6 +16,13 @@ export interface DelimitedOptions {
   format?: 'csv' | 'tsv';
 }
 
+/**
+ * Bytes read at a time. Each chunk's records stay alive until they are converted; 64 KiB (~1000
+ * catalogue lines) lets them die young in the V8 heap. Measured on a 300k-row CSV (CPU time of read,
+ * split and convert, median of 3): 1 MiB chunks 1.7 s, 64 KiB 0.8 s, 16 KiB 1.1 s.
+ */
+const READ_CHUNK_BYTES = 1 << 16;
+
 async function* utf8Chunks(stream: Readable): AsyncGenerator<string> {
   const decoder = new StringDecoder('utf8');
   for await (const buf of stream) {
@@ -82,7 +89,8 @@ export async function openDelimited(
       `delimiter must be one character other than a quote or newline, got '${delimiter}'`,
     );
   }
-  const stream = typeof source === 'string' ? createReadStream(source, { highWaterMark: 1 << 20 }) : source;
+  const stream =
+    typeof source === 'string' ? createReadStream(source, { highWaterMark: READ_CHUNK_BYTES }) : source;
   const records = delimitedRecords(utf8Chunks(stream), delimiter);
   let first: DelimitedRecord[] = [];
   try {
