@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { runSightline } from '../../src/sightline/index.js';
+import { runSightline, sightlineResponseSchema } from '../../src/sightline/index.js';
 import { coneSearch, openStore } from '../../src/store/index.js';
 import { demoApp, demoRequest } from './demo-app.js';
 
@@ -21,6 +21,9 @@ describe('POST /v1/sightlines on the invented demo field', () => {
     const direct = runSightline({ coneSearch: (q) => coneSearch(store, q) }, demoRequest());
     store.close();
     expect(reply).toEqual(JSON.parse(JSON.stringify(direct)));
+    // The route writes the engine's reply without re-validating it: the reply must match the
+    // documented schema (the OpenAPI one) all the same.
+    expect(sightlineResponseSchema.safeParse(reply).error).toBeUndefined();
     expect(reply.galaxies.length).toBeGreaterThan(0);
     expect(reply.totals.draws).toBe(200);
     expect(reply.totals.seed).toBe(11);
