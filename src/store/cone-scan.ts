@@ -1,6 +1,6 @@
 import type Database from 'better-sqlite3';
 import type { PixelRange } from '../sky/index.js';
-import { SCAN_COLUMNS } from './galaxy-row.js';
+import { SCAN_GALAXY_COLUMNS } from './galaxy-row.js';
 
 /** Filters applied inside SQLite before a row reaches JavaScript (all bounds inclusive). */
 export interface ScanFilter {
@@ -16,6 +16,8 @@ export interface ScanFilter {
    * preferred row, so dropping it could change which row stands for the galaxy).
    */
   mass?: { minLogMstar: number; minLogMhalo: number };
+  /** Whether any object of the catalogue is linked to a twin; if not, physical_link is not joined. */
+  linked: boolean;
 }
 
 /** Ranges per statement: each count gets its own prepared statement (a VALUES list of that size). */
@@ -23,28 +25,36 @@ export const MAX_SCAN_RANGES = 64;
 
 const cache = new WeakMap<Database.Database, Map<string, Database.Statement>>();
 
-function scanStatement(db: Database.Database, nRanges: number, withMass: boolean): Database.Statement {
+function scanStatement(
+  db: Database.Database,
+  nRanges: number,
+  withMass: boolean,
+  linked: boolean,
+): Database.Statement {
   let byShape = cache.get(db);
   if (!byShape) {
     byShape = new Map();
     cache.set(db, byShape);
   }
-  const key = `${nRanges}:${withMass ? 1 : 0}`;
+  const key = `${nRanges}:${withMass ? 1 : 0}:${linked ? 1 : 0}`;
   let stmt = byShape.get(key);
   if (!stmt) {
     const values = Array.from({ length: nRanges }, () => '(?, ?)').join(', ');
     const mass = withMass
       ? `AND (g.log_mstar >= @minLogMstar OR g.log_mhalo >= @minLogMhalo
-           OR (g.log_mstar IS NULL AND g.log_mhalo IS NULL) OR p.physical_key IS NOT NULL)`
+           OR (g.log_mstar IS NULL AND g.log_mhalo IS NULL)${linked ? ' OR p.physical_key IS NOT NULL' : ''})`
       : '';
     // CROSS JOIN keeps the ranges as the outer loop: one index seek per range, then a contiguous
-    // scan of the clustered table; the z and Dec terms are tested on each row before the join.
+    // scan of the clustered table; the z, Dec (and, for a catalogue without links, mass) terms are
+    // tested on each row before any join. Without links there is no join at all.
+    const link = linked
+      ? 'LEFT JOIN physical_link p ON p.catalog_id = g.catalog_id AND p.object_id = g.object_id'
+      : '';
     stmt = db
       .prepare(
         `WITH r (lo, hi) AS (VALUES ${values})
-         SELECT ${SCAN_COLUMNS}
-         FROM r CROSS JOIN galaxy g
-         LEFT JOIN physical_link p ON p.catalog_id = g.catalog_id AND p.object_id = g.object_id
+         SELECT ${SCAN_GALAXY_COLUMNS}, ${linked ? 'p.physical_key' : 'NULL'}
+         FROM r CROSS JOIN galaxy g ${link}
          WHERE g.catalog_id = @catalogId AND g.hpx BETWEEN r.lo AND r.hi
            AND g.z BETWEEN @zMin AND @zMax AND g.dec_deg BETWEEN @decLoDeg AND @decHiDeg ${mass}`,
       )
@@ -55,7 +65,7 @@ function scanStatement(db: Database.Database, nRanges: number, withMass: boolean
 }
 
 /**
- * Raw rows (arrays of SCAN_COLUMNS) of one catalogue inside the given storage-order HEALPix ranges
+ * Raw rows (SCAN_GALAXY_COLUMNS, physical key) of one catalogue inside the given storage-order HEALPix ranges
  * that pass the filter, in chunks of at most MAX_SCAN_RANGES ranges per statement.
  */
 export function scanRanges(
@@ -76,7 +86,10 @@ export function scanRanges(
     const chunk = ranges.slice(start, start + MAX_SCAN_RANGES);
     const flat: number[] = [];
     for (const [lo, hi] of chunk) flat.push(lo, hi);
-    const rows = scanStatement(db, chunk.length, filter.mass !== undefined).all(...flat, named);
+    const rows = scanStatement(db, chunk.length, filter.mass !== undefined, filter.linked).all(
+      ...flat,
+      named,
+    );
     for (const r of rows) out.push(r as unknown[]);
   }
 }

@@ -127,6 +127,7 @@ export function coneSearch(store: Store, q: ConeQuery): ConeRow[] {
         zMax: q.zMax ?? BIG,
         decLoDeg: q.decDeg - q.radiusDeg - DEC_BAND_PAD_DEG,
         decHiDeg: q.decDeg + q.radiusDeg + DEC_BAND_PAD_DEG,
+        linked: store.statements.catalogHasLinks.get(catalogId) === 1,
         ...(hinted
           ? { mass: { minLogMstar: q.minLogMstar ?? -BIG, minLogMhalo: q.minLogMhalo ?? -BIG } }
           : {}),

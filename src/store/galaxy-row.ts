@@ -88,17 +88,17 @@ export function toGalaxyRow(r: GalaxySqlRow): Omit<GalaxyRow, 'preferred'> {
 }
 
 /**
- * Columns of the lean cone scan, in this order (no join with catalog: its name is added in code).
- * fromScan reads a raw row (array) of exactly these columns.
+ * Galaxy columns of the lean cone scan, in this order (no join with catalog: its name is added in
+ * code); the scan appends the physical key as an 18th column. fromScan reads such a raw row.
  */
-export const SCAN_COLUMNS = `g.object_id, g.ra_deg, g.dec_deg, g.z, g.z_err, g.z_kind, g.log_mstar, g.log_mstar_err,
+export const SCAN_GALAXY_COLUMNS = `g.object_id, g.ra_deg, g.dec_deg, g.z, g.z_err, g.z_kind, g.log_mstar, g.log_mstar_err,
   g.mass_estimated, g.g_mag, g.i_mag, g.log_mhalo, g.mhalo_def, g.log_mhalo_err, g.group_id, g.hpx,
-  g.source_position, p.physical_key`;
+  g.source_position`;
 
 /** A mutable GalaxyRow while a query answer is being built (preferred is set last). */
 export type BuildingRow = { -readonly [K in keyof GalaxyRow]: GalaxyRow[K] };
 
-/** One raw SCAN_COLUMNS row of catalogue `catalog` as a row object (preferred: true until marked). */
+/** One raw scan row (SCAN_GALAXY_COLUMNS, physical key) of catalogue `catalog` as a row object (preferred: true until marked). */
 export function fromScan(r: unknown[], catalog: string): BuildingRow {
   const objectId = r[0] as string;
   const key = r[17] as string | null;

@@ -24,6 +24,10 @@ export function prepareStatements(db: Database.Database) {
   return {
     catalogByName: db.prepare<[string], CatalogSqlRow>('SELECT * FROM catalog WHERE name = ?'),
     catalogs: db.prepare<[], CatalogSqlRow>('SELECT * FROM catalog ORDER BY name'),
+    /** 1 when some object of the catalogue is linked to a twin in another catalogue, else 0. */
+    catalogHasLinks: db
+      .prepare<[number], number>('SELECT EXISTS (SELECT 1 FROM physical_link WHERE catalog_id = ?)')
+      .pluck(),
     /** Ids and names only (a cone search needs no JSON reports). */
     catalogNames: db.prepare<[], { catalog_id: number; name: string }>(
       'SELECT catalog_id, name FROM catalog ORDER BY name',

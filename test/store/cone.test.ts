@@ -157,6 +157,9 @@ describe('coneSearch with a redshift window and a mass hint', () => {
     writeFileSync(join(mdir, 'b.csv'), b);
     await loadCatalog(mstore, { source: join(mdir, 'a.csv'), name: 'mass-a' });
     await loadCatalog(mstore, { source: join(mdir, 'b.csv'), name: 'mass-b' });
+    // A third catalogue over the same field with no twins: its scans run without the link join.
+    writeFileSync(join(mdir, 'c.csv'), massSky(22, 1500).a.replaceAll('\nm', '\nc'));
+    await loadCatalog(mstore, { source: join(mdir, 'c.csv'), name: 'mass-c' });
   });
   afterAll(() => {
     mstore.close();
@@ -167,6 +170,9 @@ describe('coneSearch with a redshift window and a mass hint', () => {
     rows.map((r) => `${r.catalog}/${r.objectId}:${r.preferred}:${r.physicalKey}`).sort();
 
   it('returns exactly the rows, links and preferred marks of a full scan filtered row by row', () => {
+    const linked = (name: string) =>
+      mstore.statements.catalogHasLinks.get(mstore.statements.catalogByName.get(name)!.catalog_id);
+    expect([linked('mass-a'), linked('mass-b'), linked('mass-c')]).toEqual([1, 1, 0]);
     // Reference: coneSearchBruteForce reads every row of each catalogue and applies the window and
     // the hint in code; coneSearch applies them inside SQLite on the HEALPix range scans.
     const query = fc.record({
