@@ -6,7 +6,7 @@
  * Targets: ≥ 300,000 rows/s end to end and ≥ 0.5 of the bare better-sqlite3 insert loop.
  */
 import { createWriteStream, mkdtempSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { cpus, loadavg, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import Database from 'better-sqlite3';
 import { createRng } from '../src/math/index.js';
@@ -118,6 +118,11 @@ async function main(): Promise<void> {
   );
   console.log(`ratio end-to-end / bare: ${(e2e / bareRate).toFixed(2)}`);
   console.log(`peak RSS: ${(peakRss / 2 ** 20).toFixed(0)} MB`);
+  // Other jobs on the machine change every figure above: say how busy it was.
+  const [l1, l5] = loadavg();
+  console.log(
+    `machine: ${cpus().length} cores, load average ${l1.toFixed(2)} (1 min), ${l5.toFixed(2)} (5 min)`,
+  );
   rmSync(dir, { recursive: true, force: true });
 }
 
