@@ -162,7 +162,10 @@ if (!isMainThread) {
       nCand += runSightline({ coneSearch: (q) => coneSearch(probe, q), kits }, job).totals.n_candidates;
     }
     probe.close();
-    console.log(`mean candidates per sightline: ${(nCand / 200).toFixed(1)}`);
+    console.log(
+      `mean candidates per sightline: ${(nCand / 200).toFixed(1)}; ` +
+        `store queries per sightline: ${(timings.queries / count).toFixed(1)}`,
+    );
 
     const halves = [jobs.filter((_, i) => i % 2 === 0), jobs.filter((_, i) => i % 2 === 1)];
     t = performance.now();
