@@ -23,6 +23,10 @@ export function resolveDuplicates(rows: readonly CatalogRow[]): {
   kept: CatalogRow[];
   dropped: Map<CatalogRow, CatalogRow[]>;
 } {
+  // Rows without a physical key stand alone; when no row has one (the usual case) and no (catalogue,
+  // id) repeats, every row is kept as it is.
+  if (rows.every((r) => r.physicalKey == null) && distinctIds(rows))
+    return { kept: [...rows], dropped: new Map() };
   const best = new Map<string, CatalogRow>();
   for (const r of rows) {
     const k = physicalKeyOf(r);
@@ -41,4 +45,14 @@ export function resolveDuplicates(rows: readonly CatalogRow[]): {
     }
   }
   return { kept, dropped };
+}
+
+function distinctIds(rows: readonly CatalogRow[]): boolean {
+  const seen = new Set<string>();
+  for (const r of rows) {
+    const k = `${r.catalog}/${r.objectId}`;
+    if (seen.has(k)) return false;
+    seen.add(k);
+  }
+  return true;
 }
