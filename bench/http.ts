@@ -205,8 +205,9 @@ async function main() {
       },
     ],
   };
-  // Warm-up: every worker builds its fast-DM table (≈ 1–2 s) and settles its JIT.
-  await autocannon({ ...post, duration: 4 });
+  // Warm-up: every worker builds its fast-DM table (≈ 1–2 s) and settles its JIT (the first
+  // measured run was still ~15 % slow after a 4 s warm-up).
+  await autocannon({ ...post, duration: 8 });
 
   const rates: number[] = [];
   for (let k = 0; k < REPEATS; k++) {
