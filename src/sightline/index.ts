@@ -29,7 +29,14 @@ export {
   searchRedshiftRange,
   velocityWindowDz,
 } from './redshift-range.js';
-export { parseSightlineRequest, runSightline, type SightlineDeps, type SightlineTimings } from './run.js';
+export {
+  type ParsedSightlineRequest,
+  parseSightlineRequest,
+  runParsedSightline,
+  runSightline,
+  type SightlineDeps,
+  type SightlineTimings,
+} from './run.js';
 export {
   dmSummarySchema,
   type EnvironmentEntry,

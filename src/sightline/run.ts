@@ -1,6 +1,7 @@
+import type { z } from 'zod';
 import { InputError } from '../errors.js';
 import { ARCSEC, C_KM_S } from '../math/index.js';
-import { describeIssues, parseModel } from '../model/index.js';
+import { describeIssues, type Model, parseModel } from '../model/index.js';
 import { classifyCandidates } from './classify.js';
 import { haloRadiusFromDensity } from './kit.js';
 import { createKitCache, type KitProvider } from './kit-cache.js';
@@ -100,8 +101,18 @@ function galaxyResult(g: PreparedGalaxy, perGalaxy: Float64Array): GalaxyResult 
  * request (seeded). Throws InputError for invalid requests.
  */
 export function runSightline(deps: SightlineDeps, request: unknown): SightlineResponse {
-  const req = parseSightlineRequest(request);
-  const model = parseModel(req.model);
+  return runParsedSightline(deps, parseSightlineRequest(request));
+}
+
+/** A request as sightlineRequestSchema outputs it (defaults filled in, model keys checked). */
+export type ParsedSightlineRequest = z.output<typeof sightlineRequestSchema>;
+
+/**
+ * runSightline for a request that already went through sightlineRequestSchema (the server's route
+ * validation does that): saves parsing it, and its model, a second time.
+ */
+export function runParsedSightline(deps: SightlineDeps, req: ParsedSightlineRequest): SightlineResponse {
+  const model = req.model ? (Object.freeze(req.model) as Model) : parseModel(undefined);
   const kit = (deps.kits ?? sharedKits)(model);
   const zSource = req.z_source;
   const zSourceErr = req.z_source_err ?? 0;

@@ -4,7 +4,13 @@ import { dmRestExact } from '../../src/dm/index.js';
 import { InputError } from '../../src/errors.js';
 import { createGasProfile } from '../../src/gas/index.js';
 import { haloFromStellarMass } from '../../src/halo/index.js';
-import { type CatalogRow, runSightline, type SightlineResponse } from '../../src/sightline/index.js';
+import {
+  type CatalogRow,
+  runParsedSightline,
+  runSightline,
+  type SightlineResponse,
+  sightlineRequestSchema,
+} from '../../src/sightline/index.js';
 import { expectClose } from '../helpers/expect-close.js';
 import { bruteCone } from './helpers/brute-cone.js';
 import { galaxyAtImpact } from './helpers/field.js';
@@ -299,6 +305,31 @@ describe('runSightline: foreground, environment, host, groups', () => {
     expect(strip(results[2])).toEqual(strip(results[0]));
     expect(results[0].galaxies.length).toBeGreaterThan(5);
     expect(calls[2].length).toBeLessThan(calls[0].length);
+  });
+
+  it('gives the same result from an already parsed request (the server path) as from a raw one', () => {
+    const rows = [
+      galaxyAtImpact(SIGHT, { id: 'A', z: 0.2, bKpc: 80, logMstar: 10.7 }),
+      {
+        ...galaxyAtImpact(SIGHT, { id: 'B', z: 0.35, bKpc: 60, logMstar: 10.2 }),
+        zKind: 'photo' as const,
+        zErr: 0.04,
+      },
+    ];
+    for (const request of [
+      { ra: SIGHT.raDeg, dec: SIGHT.decDeg, z_source: 0.5 },
+      {
+        ra: SIGHT.raDeg,
+        dec: SIGHT.decDeg,
+        z_source: 0.5,
+        model: { draws: 400, seed: 9, profile: { kind: 'nfw' } },
+      },
+    ]) {
+      const deps = { coneSearch: bruteCone(rows) };
+      const parsed = runParsedSightline(deps, sightlineRequestSchema.parse(request));
+      expect(parsed).toEqual(runSightline(deps, request));
+      expect(parsed.galaxies.length).toBe(2);
+    }
   });
 
   it('counts members of a catalogued group halo only through the group', () => {
