@@ -86,7 +86,8 @@ function maxAngleRad(kit: HaloKit, zLo: number, zHi: number, logM = kit.model.lo
  * the shell's lower edge; photometric rows: z − w(1+z), not below photo_z_floor), at the smallest D_A
  * over the reachable interval; capped at model.max_search_deg. Consecutive shells whose radii differ by
  * less than MERGE_RATIO are merged into one query (the store returns every z ≤ zMax in a cone, so
- * repeating nearly equal cones only rescans the same rows).
+ * repeating nearly equal cones only rescans the same rows). The shell edges do not depend on zMax
+ * (only the last shell is cut there), so each kit keeps its full shells and reuses them.
  */
 export function planShells(kit: HaloKit, zSourceHi: number): SearchShell[] {
   const m = kit.model;
