@@ -6,6 +6,6 @@ export default defineConfig({
     testTimeout: 60_000,
     hookTimeout: 120_000,
     pool: 'forks',
-    reporters: ['default'],
+    reporters: ['default', ['json', { outputFile: 'test-output/vitest-results.json' }]],
   },
 });
