@@ -1,48 +1,22 @@
-import { mkdirSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
-import { type Browser, chromium } from 'playwright-core';
+import { mkdirSync } from 'node:fs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { loadServerConfig } from '../../server/config.js';
-import { type RunningServer, startServer } from '../../server/server.js';
-import { DEMO_BURST, DEMO_FILES } from '../server/demo-app.js';
+import { DEMO_BURST } from '../server/demo-app.js';
+import { type BrowserFixture, startBrowserFixture } from './browser-fixture.js';
 
-const CHROMIUM = '/usr/bin/chromium';
 const OUT = new URL('../../test-output/', import.meta.url);
 
 describe('the DM-budget panel in a real browser (Debian chromium, headless)', () => {
-  let dir: string;
-  let server: RunningServer;
-  let browser: Browser;
+  let fixture: BrowserFixture;
+  let server: BrowserFixture['server'];
+  let browser: BrowserFixture['browser'];
 
   beforeAll(async () => {
-    dir = mkdtempSync(join(tmpdir(), 'forehalo-web-budget-'));
-    const config = loadServerConfig({}, { dbPath: join(dir, 'web.db'), port: 0, logLevel: 'silent' });
-    server = await startServer(config, { signals: false });
-    for (const [name, file] of DEMO_FILES) {
-      const res = await fetch(`${server.url}/v1/catalogs/${name}?file_name=${file}`, {
-        method: 'PUT',
-        headers: { 'content-type': 'text/csv' },
-        body: readFileSync(new URL(`../../fixtures/demo/${file}`, import.meta.url)),
-      });
-      if (res.status !== 201) throw new Error(`demo load failed: ${await res.text()}`);
-    }
-    browser = await chromium.launch({
-      executablePath: CHROMIUM,
-      args: [
-        '--headless',
-        '--no-sandbox',
-        '--disable-gpu',
-        '--disable-background-networking',
-        '--disable-sync',
-      ],
-    });
+    fixture = await startBrowserFixture('forehalo-web-budget-');
+    ({ server, browser } = fixture);
   });
 
   afterAll(async () => {
-    await browser?.close();
-    await server?.shutdown('test done');
-    rmSync(dir, { recursive: true, force: true });
+    await fixture?.close();
   });
 
   it('posts the traced sightline with DM_obs and DM_ISM, draws the waterfall and the host posterior with P(DM_host < 0)', async () => {
