@@ -1,15 +1,10 @@
-/** One catalogued galaxy as the sightline engine sees it (degrees ICRS, log10 solar masses). */
-export interface GalaxyRow {
-  readonly catalog: string;
-  readonly objectId: string;
-  readonly raDeg: number;
-  readonly decDeg: number;
-  readonly z: number;
-  /** 1σ redshift error (absolute, already converted from σ/(1+z) if the file gave that); null if unknown. */
-  readonly zErr: number | null;
-  readonly zKind: 'spec' | 'photo';
-  readonly logMstar: number | null;
-  readonly logMstarErr: number | null;
+import type { CatalogRow } from '../sightline/types.js';
+
+/**
+ * One stored galaxy: the fields the sightline engine reads (CatalogRow, degrees ICRS, log10 solar
+ * masses; the store fills every optional one) plus what only the store knows.
+ */
+export interface GalaxyRow extends CatalogRow {
   /** True when logMstar was estimated from g − i colour (Taylor et al. 2011) at load time. */
   readonly massEstimated: boolean;
   readonly gMag: number | null;
