@@ -33,14 +33,21 @@ export function runLoadInWorker(job: LoadJob): Promise<unknown> {
 
 /**
  * Catalogue operations for the HTTP layer. Reads use the server's store connection; loads spool the
- * body to a temporary file and run in a worker thread with its own connection, one at a time.
+ * body to a temporary file and run in a worker thread with its own connection, one at a time; drops
+ * queue behind them.
  */
 export function createCatalogService(store: Store, dbPath: string): CatalogService {
   let queue: Promise<unknown> = Promise.resolve();
   return {
     list: () => listCatalogs(store),
     show: (name) => getCatalog(store, name),
-    drop: (name) => dropCatalog(store, name),
+    // A load holds the database's write lock from its first row to its commit: a drop waits its turn
+    // in the same queue instead of blocking the event loop on SQLite's busy wait.
+    drop(name) {
+      const run = queue.then(() => dropCatalog(store, name));
+      queue = run.catch(() => undefined);
+      return run;
+    },
     async load(request: LoadRequest) {
       const spooled = await spoolToFile(request.body, request.limitBytes);
       const job: LoadJob = {

@@ -11,7 +11,8 @@ export interface SourceFile {
   readonly path: string;
   /** File name recorded in the catalogue table (the original name, not a spool path). */
   readonly fileName: string;
-  readonly sha256: string;
+  /** SHA-256 of the file (hex); for a path it is computed while the caller gets on with parsing. */
+  readonly sha256: Promise<string>;
   readonly bytes: number;
   dispose(): void;
 }
@@ -36,13 +37,9 @@ export async function resolveSource(source: string | Readable, fileName?: string
     } catch (err) {
       throw new InputError('bad_file', `cannot read ${source}: ${(err as Error).message}`, { file: source });
     }
-    return {
-      path: source,
-      fileName: fileName ?? basename(source),
-      sha256: await sha256OfFile(source),
-      bytes,
-      dispose: () => {},
-    };
+    const sha256 = sha256OfFile(source);
+    sha256.catch(() => {}); // awaited by the caller; never an unhandled rejection meanwhile
+    return { path: source, fileName: fileName ?? basename(source), sha256, bytes, dispose: () => {} };
   }
   const dir = mkdtempSync(join(tmpdir(), 'forehalo-upload-'));
   const path = join(dir, 'source');
@@ -64,7 +61,7 @@ export async function resolveSource(source: string | Readable, fileName?: string
   return {
     path,
     fileName: fileName ?? 'upload',
-    sha256: hash.digest('hex'),
+    sha256: Promise.resolve(hash.digest('hex')),
     bytes,
     dispose: () => rmSync(dir, { recursive: true, force: true }),
   };
