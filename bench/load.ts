@@ -126,7 +126,7 @@ async function main(): Promise<void> {
     `bare better-sqlite3 insert loop: ${bareS.toFixed(2)} s, ${Math.round(bareRate).toLocaleString('en')} rows/s`,
   );
   console.log(
-    `  of which read + check + sort + write parts: ${streamS.toFixed(2)} s; id check, links, commit (WAL checkpoint): ${tailS.toFixed(2)} s; close: ${(endToEnd - streamS - tailS).toFixed(2)} s`,
+    `  of which read + check + stage: ${streamS.toFixed(2)} s; id check, HEALPix-ordered copy, links, commit (WAL checkpoint): ${tailS.toFixed(2)} s; close: ${(endToEnd - streamS - tailS).toFixed(2)} s`,
   );
   console.log(`ratio end-to-end / bare: ${(e2e / bareRate).toFixed(2)}`);
   console.log(`peak RSS during the load: ${(loadPeakRss / 2 ** 20).toFixed(0)} MB`);

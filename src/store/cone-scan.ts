@@ -5,8 +5,6 @@ import { SCAN_GALAXY_COLUMNS } from './galaxy-row.js';
 /** Filters applied inside SQLite before a row reaches JavaScript (all bounds inclusive). */
 export interface ScanFilter {
   catalogId: number;
-  /** Parts the catalogue is stored in (catalog.part_count); each part is scanned on its own. */
-  partCount: number;
   zMin: number;
   zMax: number;
   /** A band in declination that contains the whole cone (cheap pre-test; the exact test follows). */
@@ -46,19 +44,18 @@ function scanStatement(
       ? `AND (g.log_mstar >= @minLogMstar OR g.log_mhalo >= @minLogMhalo
            OR (g.log_mstar IS NULL AND g.log_mhalo IS NULL)${linked ? ' OR p.physical_key IS NOT NULL' : ''})`
       : '';
-    // CROSS JOIN keeps parts and ranges as the outer loops: one index seek per part and range, then
-    // a contiguous scan of the clustered table; the z, Dec (and, for a catalogue without links,
-    // mass) terms are tested on each row before any join. Without links there is no join at all.
+    // CROSS JOIN keeps the ranges as the outer loop: one index seek per range, then a contiguous
+    // scan of the clustered table; the z, Dec (and, for a catalogue without links, mass) terms are
+    // tested on each row before any join. Without links there is no join at all.
     const link = linked
       ? 'LEFT JOIN physical_link p ON p.catalog_id = g.catalog_id AND p.object_id = g.object_id'
       : '';
     stmt = db
       .prepare(
-        `WITH r (lo, hi) AS (VALUES ${values}),
-           k (part) AS (SELECT 0 UNION ALL SELECT part + 1 FROM k WHERE part + 1 < @partCount)
+        `WITH r (lo, hi) AS (VALUES ${values})
          SELECT ${SCAN_GALAXY_COLUMNS}, ${linked ? 'p.physical_key' : 'NULL'}
-         FROM k CROSS JOIN r CROSS JOIN galaxy g ${link}
-         WHERE g.catalog_id = @catalogId AND g.part = k.part AND g.hpx BETWEEN r.lo AND r.hi
+         FROM r CROSS JOIN galaxy g ${link}
+         WHERE g.catalog_id = @catalogId AND g.hpx BETWEEN r.lo AND r.hi
            AND g.z BETWEEN @zMin AND @zMax AND g.dec_deg BETWEEN @decLoDeg AND @decHiDeg ${mass}`,
       )
       .raw(true);
@@ -79,7 +76,6 @@ export function scanRanges(
 ): void {
   const named = {
     catalogId: filter.catalogId,
-    partCount: filter.partCount,
     zMin: filter.zMin,
     zMax: filter.zMax,
     decLoDeg: filter.decLoDeg,

@@ -61,14 +61,14 @@ function checkQuery(q: ConeQuery): void {
   for (const f of ['zMin', 'minLogMstar', 'minLogMhalo'] as const) checkOptionalNumber(q, f);
 }
 
-/** The queried catalogues as [id, name, part count], in name order (unknown names are an error). */
-function catalogsOf(store: Store, names?: readonly string[]): [number, string, number][] {
+/** The queried catalogues as [id, name], in name order (unknown names are an error). */
+function catalogsOf(store: Store, names?: readonly string[]): [number, string][] {
   const all = store.statements.catalogNames.all();
-  if (!names) return all.map((c) => [c.catalog_id, c.name, c.part_count]);
+  if (!names) return all.map((c) => [c.catalog_id, c.name]);
   return names.map((n) => {
     const c = all.find((x) => x.name === n);
     if (!c) throw new InputError('catalog_not_found', `no catalogue named '${n}'`, { name: n });
-    return [c.catalog_id, c.name, c.part_count];
+    return [c.catalog_id, c.name];
   });
 }
 
@@ -116,14 +116,13 @@ export function coneSearch(store: Store, q: ConeQuery): ConeRow[] {
   const raw: unknown[][] = [];
   const rows: BuildingRow[] = [];
   const linked = new Set<BuildingRow>();
-  for (const [catalogId, name, partCount] of catalogsOf(store, q.catalogs)) {
+  for (const [catalogId, name] of catalogsOf(store, q.catalogs)) {
     raw.length = 0;
     scanRanges(
       store.db,
       ranges,
       {
         catalogId,
-        partCount,
         zMin: q.zMin ?? -BIG,
         zMax: q.zMax ?? BIG,
         decLoDeg: q.decDeg - q.radiusDeg - DEC_BAND_PAD_DEG,

@@ -37,19 +37,15 @@ export function matchCatalog(store: Store, catalogId: number): number {
       'SELECT c.catalog_id, c.row_count AS n FROM catalog c WHERE c.catalog_id != ?',
     )
     .all(catalogId);
-  const partsOf = db.prepare<[number], number>('SELECT part_count FROM catalog WHERE catalog_id = ?').pluck();
   if (others.length === 0) return 0;
   const nSelf = (
     db.prepare('SELECT COUNT(*) AS n FROM galaxy WHERE catalog_id = ?').get(catalogId) as { n: number }
   ).n;
-  // Probes go in storage order (part, then HEALPix index), so successive look-ups touch nearby pages.
   const rowsOf = db.prepare<[number], MatchRow>(
-    'SELECT object_id, ra_deg, dec_deg, z, z_err, z_kind FROM galaxy WHERE catalog_id = ? ORDER BY part, hpx',
+    'SELECT object_id, ra_deg, dec_deg, z, z_err, z_kind FROM galaxy WHERE catalog_id = ? ORDER BY hpx',
   );
-  const inRange = db.prepare<[{ catalogId: number; partCount: number; lo: number; hi: number }], MatchRow>(
-    `WITH k (part) AS (SELECT 0 UNION ALL SELECT part + 1 FROM k WHERE part + 1 < @partCount)
-     SELECT object_id, ra_deg, dec_deg, z, z_err, z_kind FROM k CROSS JOIN galaxy g
-     WHERE g.catalog_id = @catalogId AND g.part = k.part AND g.hpx BETWEEN @lo AND @hi`,
+  const inRange = db.prepare<[number, number, number], MatchRow>(
+    'SELECT object_id, ra_deg, dec_deg, z, z_err, z_kind FROM galaxy WHERE catalog_id = ? AND hpx BETWEEN ? AND ?',
   );
   const insert = db.prepare(
     'INSERT OR IGNORE INTO galaxy_match (catalog_a, object_a, catalog_b, object_b, sep_arcsec, dz) VALUES (?, ?, ?, ?, ?, ?)',
@@ -61,10 +57,9 @@ export function matchCatalog(store: Store, catalogId: number): number {
     const selfIsProbe = nSelf <= other.n;
     const probeId = selfIsProbe ? catalogId : other.catalog_id;
     const targetId = selfIsProbe ? other.catalog_id : catalogId;
-    const targetParts = partsOf.get(targetId) ?? 1;
     for (const p of rowsOf.iterate(probeId)) {
       for (const [lo, hi] of coneToRanges(STORAGE_ORDER, p.ra_deg, p.dec_deg, radiusRad)) {
-        for (const t of inRange.all({ catalogId: targetId, partCount: targetParts, lo, hi })) {
+        for (const t of inRange.all(targetId, lo, hi)) {
           const sep = angularSeparationArcsec(p.ra_deg, p.dec_deg, t.ra_deg, t.dec_deg);
           if (sep > match.radiusArcsec || !redshiftsCompatible(p, t, match)) continue;
           const [a, b, ca, cb] = probeId < targetId ? [p, t, probeId, targetId] : [t, p, targetId, probeId];

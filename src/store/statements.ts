@@ -14,8 +14,6 @@ export interface CatalogSqlRow {
   loaded_at: string;
   mapping_json: string;
   report_json: string;
-  /** Parts the catalogue is stored in (numbered 0 … part_count − 1). */
-  part_count: number;
 }
 
 const FROM_GALAXY = `FROM galaxy g JOIN catalog c ON c.catalog_id = g.catalog_id
@@ -31,8 +29,8 @@ export function prepareStatements(db: Database.Database) {
       .prepare<[number], number>('SELECT EXISTS (SELECT 1 FROM physical_link WHERE catalog_id = ?)')
       .pluck(),
     /** Ids and names only (a cone search needs no JSON reports). */
-    catalogNames: db.prepare<[], { catalog_id: number; name: string; part_count: number }>(
-      'SELECT catalog_id, name, part_count FROM catalog ORDER BY name',
+    catalogNames: db.prepare<[], { catalog_id: number; name: string }>(
+      'SELECT catalog_id, name FROM catalog ORDER BY name',
     ),
     deleteCatalog: db.prepare<[number]>('DELETE FROM catalog WHERE catalog_id = ?'),
     insertCatalog: db.prepare<

@@ -2,10 +2,8 @@ import { createCosmology } from '../../cosmology/index.js';
 import { InputError } from '../../errors.js';
 import type { ColumnInfo, SourceRow } from '../readers/types.js';
 import { type Field, normaliseName } from './fields.js';
-import { createIdFilter } from './id-filter.js';
 import { type ColumnMapping, resolveMapping } from './mapping.js';
 import { openTable, type SourceFormat } from './open-table.js';
-import { type RemovedTwin, sortPart } from './part-sort.js';
 import { MAX_REPORTED_PROBLEMS, ProblemLog, type RowProblem } from './problems.js';
 import { createRowConverter, type IngestDefaults, type StagedRow } from './row-converter.js';
 import { createBatchBuilder, type StagedBatch } from './staged-batch.js';
@@ -13,8 +11,6 @@ import { guessMassUnit, type MassUnit, massUnitFromString } from './units.js';
 
 /** Source rows read and converted per slice (see convertFile and READ_CHUNK_BYTES in readers/csv.ts). */
 const READ_ROWS = 1000;
-/** Exact twins listed by position (enough for any report; the count is always complete). */
-const MAX_LISTED_TWINS = 10_000;
 
 /** Everything needed to turn a catalogue file into staged rows (plain data: it crosses to a worker). */
 export interface ConvertInput {
@@ -24,11 +20,8 @@ export interface ConvertInput {
   delimiter?: string;
   explicitMap: Partial<Record<Field, string>>;
   defaults: IngestDefaults;
-  /** Source rows per part: each part is sorted into storage order and handed over as one batch. */
   batchSize: number;
   skipInvalid: boolean;
-  /** Rough number of rows in the file (sizes the duplicate-id filter; see id-filter.ts). */
-  expectedRows?: number;
 }
 
 export interface ConvertHeader {
@@ -56,14 +49,6 @@ export interface ConvertEnd {
   rowsRead: number;
   /** Reading stopped early: problems were found, skipInvalid is off, and the report is full. */
   stopped: boolean;
-  /** Ids that may occur more than once (a superset of the repeated ids, settled by the caller). */
-  idCandidates: string[];
-  /** Too many candidates to list: the caller must check all ids of the load. */
-  idCheckAll: boolean;
-  /** Rows left out of their part as exact twins (same pixel and id) of an earlier row (first 10,000). */
-  removedTwins: RemovedTwin[];
-  /** Number of such rows (all of them). */
-  removedTwinCount: number;
 }
 
 export interface ConvertSink {
@@ -76,11 +61,7 @@ export interface ConvertSink {
  * Read, check and convert a catalogue file batch by batch. No SQL here, so the same code runs in the
  * loading thread or in a worker thread that parses while the main thread writes.
  */
-export async function convertFile(
-  input: ConvertInput,
-  sink: ConvertSink,
-  signal?: AbortSignal,
-): Promise<ConvertEnd> {
+export async function convertFile(input: ConvertInput, sink: ConvertSink): Promise<ConvertEnd> {
   const table = await openTable(input.path, input.fileName, input.format, input.delimiter);
   const log = new ProblemLog();
   const counts: ConvertCounts = {
@@ -91,9 +72,6 @@ export async function convertFile(
   };
   let rowsRead = 0;
   let stopped = false;
-  const ids = createIdFilter(input.expectedRows ?? 100_000);
-  const removedTwins: RemovedTwin[] = [];
-  let removedTwinCount = 0;
   try {
     const mapping = resolveMapping(table.columns, input.explicitMap);
     const cosmology = createCosmology('planck18');
@@ -149,24 +127,13 @@ export async function convertFile(
         const rejecting = log.count > 0 && !input.skipInvalid;
         const batch = good.take();
         readSinceFlush = 0;
-        if (rejecting) {
-          await sink.batch(createBatchBuilder(0).take(), rowsRead);
-        } else {
-          const { part, removed } = sortPart(batch);
-          removedTwinCount += removed.length;
-          for (const r of removed) if (removedTwins.length < MAX_LISTED_TWINS) removedTwins.push(r);
-          await sink.batch(part, rowsRead);
-        }
+        await sink.batch(rejecting ? createBatchBuilder(0).take() : batch, rowsRead);
         return rejecting && log.problems.length >= MAX_REPORTED_PROBLEMS;
       };
       const convertSlice = async (slice: readonly SourceRow[]): Promise<boolean> => {
-        signal?.throwIfAborted();
         for (const row of slice) {
           const r = convert!(row);
-          if (r) {
-            good.push(r);
-            ids.add(r[1]);
-          }
+          if (r) good.push(r);
           rowsRead++;
           if (++readSinceFlush === input.batchSize && (await flush())) return true;
         }
@@ -198,18 +165,7 @@ export async function convertFile(
   } finally {
     await table.close();
   }
-  return {
-    problems: log.problems,
-    problemCount: log.count,
-    badRows: log.badRows,
-    counts,
-    rowsRead,
-    stopped,
-    idCandidates: [...ids.candidates],
-    idCheckAll: ids.overflowed,
-    removedTwins,
-    removedTwinCount,
-  };
+  return { problems: log.problems, problemCount: log.count, badRows: log.badRows, counts, rowsRead, stopped };
 }
 
 function chooseMassUnit(

@@ -25,9 +25,7 @@ try {
       while (credits === 0) await new Promise<void>((r) => (wake = r));
       credits--;
       // The number and code buffers are transferred, not copied.
-      const buffers: ArrayBuffer[] = [rows.numbers.buffer, rows.codes.buffer];
-      if (rows.order) buffers.push(rows.order.buffer);
-      port.postMessage({ type: 'batch', rows, rowsRead }, buffers);
+      port.postMessage({ type: 'batch', rows, rowsRead }, [rows.numbers.buffer, rows.codes.buffer]);
     },
   });
   port.postMessage({ type: 'end', end });

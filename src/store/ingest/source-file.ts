@@ -11,8 +11,7 @@ export interface SourceFile {
   readonly path: string;
   /** File name recorded in the catalogue table (the original name, not a spool path). */
   readonly fileName: string;
-  /** SHA-256 of the file (hex); for a path it is computed while the caller gets on with parsing. */
-  readonly sha256: Promise<string>;
+  readonly sha256: string;
   readonly bytes: number;
   dispose(): void;
 }
@@ -37,9 +36,13 @@ export async function resolveSource(source: string | Readable, fileName?: string
     } catch (err) {
       throw new InputError('bad_file', `cannot read ${source}: ${(err as Error).message}`, { file: source });
     }
-    const sha256 = sha256OfFile(source);
-    sha256.catch(() => {}); // awaited by the caller; never an unhandled rejection meanwhile
-    return { path: source, fileName: fileName ?? basename(source), sha256, bytes, dispose: () => {} };
+    return {
+      path: source,
+      fileName: fileName ?? basename(source),
+      sha256: await sha256OfFile(source),
+      bytes,
+      dispose: () => {},
+    };
   }
   const dir = mkdtempSync(join(tmpdir(), 'forehalo-upload-'));
   const path = join(dir, 'source');
@@ -61,7 +64,7 @@ export async function resolveSource(source: string | Readable, fileName?: string
   return {
     path,
     fileName: fileName ?? 'upload',
-    sha256: Promise.resolve(hash.digest('hex')),
+    sha256: hash.digest('hex'),
     bytes,
     dispose: () => rmSync(dir, { recursive: true, force: true }),
   };

@@ -15,8 +15,6 @@ export interface StagedBatch {
   codes: Uint8Array<ArrayBuffer>;
   ids: string[];
   groupIds: (string | null)[];
-  /** Row indices in storage order, when the batch is a sorted part (rows left out are not listed). */
-  order?: Uint32Array<ArrayBuffer>;
 }
 
 /** hpx, ra_deg, dec_deg, z, z_err, log_mstar, log_mstar_err, g_mag, i_mag, log_mhalo, log_mhalo_err, source_position */
