@@ -37,17 +37,19 @@ export function runLoadInWorker(job: LoadJob): Promise<unknown> {
  * queue behind them.
  */
 export function createCatalogService(store: Store, dbPath: string): CatalogService {
+  // Writes run one at a time, in arrival order: a load's final copy and commit hold the database's
+  // write lock, and a drop queued behind it waits here instead of blocking the event loop on
+  // SQLite's busy wait.
   let queue: Promise<unknown> = Promise.resolve();
+  const inTurn = <T>(write: () => T | Promise<T>): Promise<T> => {
+    const run = queue.then(write);
+    queue = run.catch(() => undefined);
+    return run;
+  };
   return {
     list: () => listCatalogs(store),
     show: (name) => getCatalog(store, name),
-    // A load holds the database's write lock from its first row to its commit: a drop waits its turn
-    // in the same queue instead of blocking the event loop on SQLite's busy wait.
-    drop(name) {
-      const run = queue.then(() => dropCatalog(store, name));
-      queue = run.catch(() => undefined);
-      return run;
-    },
+    drop: (name) => inTurn(() => dropCatalog(store, name)),
     async load(request: LoadRequest) {
       const spooled = await spoolToFile(request.body, request.limitBytes);
       const job: LoadJob = {
@@ -60,10 +62,8 @@ export function createCatalogService(store: Store, dbPath: string): CatalogServi
         skipInvalid: request.skipInvalid,
         mode: request.mode,
       };
-      const run = queue.then(() => runLoadInWorker(job));
-      queue = run.catch(() => undefined);
       try {
-        return await run;
+        return await inTurn(() => runLoadInWorker(job));
       } finally {
         spooled.dispose();
       }
