@@ -1,9 +1,8 @@
 import { DomainError } from '../errors.js';
 import { brentRoot } from '../math/index.js';
-import { BUDGET_CAUTIONS } from './cautions.js';
 import { cosmicPdf } from './cosmic-pdf-cache.js';
-import { type RedshiftFreeInput, residualDraws } from './residuals.js';
-import { cosmicConvention, cosmicMeanInForce } from './resolve.js';
+import { type RedshiftFreeInput, redshiftFreeTrailer, residualDraws } from './residuals.js';
+import { cosmicMeanInForce } from './resolve.js';
 
 export interface RedshiftLimitInput extends RedshiftFreeInput {
   /** Confidence that DM_host ≥ 0 at the limit (default 0.95). */
@@ -87,13 +86,6 @@ export function maxSourceRedshift(input: RedshiftLimitInput): RedshiftLimit {
     p_negative_at_limit: zLimit === null ? null : pNegative(zLimit),
     bracketed,
     draws: model.draws,
-    seed: model.seed,
-    cosmic_mode: model.cosmic_mode,
-    conventions: [
-      cosmicConvention(model),
-      'no foreground-halo term is included without a source redshift other than the haloDraws the caller passed',
-    ],
-    warnings,
-    cautions: BUDGET_CAUTIONS,
+    ...redshiftFreeTrailer(model, warnings),
   };
 }

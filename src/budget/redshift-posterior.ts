@@ -1,9 +1,8 @@
 import { DomainError } from '../errors.js';
 import { normalQuantile, quantileSorted } from '../math/index.js';
-import { BUDGET_CAUTIONS } from './cautions.js';
 import { cosmicPdf } from './cosmic-pdf-cache.js';
-import { type RedshiftFreeInput, residualDraws } from './residuals.js';
-import { cosmicConvention, cosmicMeanInForce } from './resolve.js';
+import { type RedshiftFreeInput, redshiftFreeTrailer, residualDraws } from './residuals.js';
+import { cosmicMeanInForce } from './resolve.js';
 
 export interface RedshiftPosteriorInput extends RedshiftFreeInput {
   /** Redshift grid: explicit increasing values > 0, or {min, max, n} (default 0.01–3, 150 points). */
@@ -155,13 +154,6 @@ export function redshiftPosterior(input: RedshiftPosteriorInput): RedshiftPoster
       frame: 'host rest frame, log-normal (team assumption)',
     },
     draws: residual.length,
-    seed: model.seed,
-    cosmic_mode: model.cosmic_mode,
-    conventions: [
-      cosmicConvention(model),
-      'no foreground-halo term is included without a source redshift other than the haloDraws the caller passed',
-    ],
-    warnings,
-    cautions: BUDGET_CAUTIONS,
+    ...redshiftFreeTrailer(model, warnings),
   };
 }

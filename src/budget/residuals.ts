@@ -1,7 +1,8 @@
 import type { Cosmology } from '../cosmology/index.js';
+import { BUDGET_CAUTIONS } from './cautions.js';
 import { type BudgetObservation, drawLocalTerms, validateObservation } from './local-draws.js';
 import type { BudgetModel, BudgetModelInput } from './model.js';
-import { resolveBudgetModel } from './resolve.js';
+import { cosmicConvention, resolveBudgetModel } from './resolve.js';
 
 /** Inputs shared by the two "no source redshift" analyses. */
 export interface RedshiftFreeInput extends BudgetObservation {
@@ -33,4 +34,18 @@ export function residualDraws(input: RedshiftFreeInput): {
   for (let i = 0; i < residual.length; i++)
     residual[i] = local.obs[i] - local.ism[i] - local.mwHalo[i] - local.halos[i];
   return { model, residual, warnings: local.warnings, mwHaloSource: local.mwHaloSource };
+}
+
+/** The closing fields of both "no source redshift" results: seed, conventions, warnings, cautions. */
+export function redshiftFreeTrailer(model: BudgetModel, warnings: string[]) {
+  return {
+    seed: model.seed,
+    cosmic_mode: model.cosmic_mode,
+    conventions: [
+      cosmicConvention(model),
+      'no foreground-halo term is included without a source redshift other than the haloDraws the caller passed',
+    ],
+    warnings,
+    cautions: BUDGET_CAUTIONS,
+  };
 }

@@ -69,8 +69,8 @@ function compareRows(a: CatalogRow, b: CatalogRow): number {
   );
 }
 
-function galaxyResult(g: PreparedGalaxy, perGalaxy: Float64Array): GalaxyResult {
-  const r = g.cand.row;
+/** The fields that name a catalogue row and place it, first in every galaxy entry of a result. */
+function rowIdentity(r: PreparedGalaxy['cand']['row']) {
   return {
     id: r.objectId,
     catalog: r.catalog,
@@ -79,6 +79,13 @@ function galaxyResult(g: PreparedGalaxy, perGalaxy: Float64Array): GalaxyResult 
     z: r.z,
     z_err: r.zErr,
     z_kind: r.zKind,
+  };
+}
+
+function galaxyResult(g: PreparedGalaxy, perGalaxy: Float64Array): GalaxyResult {
+  const r = g.cand.row;
+  return {
+    ...rowIdentity(r),
     sep_arcsec: g.sepRad / ARCSEC,
     b_kpc: g.bKpc,
     log_mstar: r.logMstar,
@@ -194,13 +201,7 @@ export function runParsedSightline(deps: SightlineDeps, req: ParsedSightlineRequ
     const bKpc = cand.sepRad * kit.angularDiameterDistanceKpc(r.z);
     const rHalo = haloRadiusFromDensity(10 ** cand.halo.logMhalo, kit.haloDensityMsunKpc3(r.z));
     return {
-      id: r.objectId,
-      catalog: r.catalog,
-      ra: r.raDeg,
-      dec: r.decDeg,
-      z: r.z,
-      z_err: r.zErr,
-      z_kind: r.zKind,
+      ...rowIdentity(r),
       sep_arcsec: cand.sepRad / ARCSEC,
       b_kpc: bKpc,
       dv_kms: (C_KM_S * (r.z - zSource)) / (1 + zSource),
