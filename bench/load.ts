@@ -2,20 +2,33 @@
  * Catalogue load speed and memory. Usage:
  *   npx tsx bench/load.ts [N=1000000]       end-to-end load of a synthetic CSV vs a bare insert loop
  *   npx tsx bench/load.ts 5000000           the same at 5M rows; peak RSS is printed (target < 300 MB)
- *   add --in-thread to parse in the loading thread instead of a worker thread
+ *   --runs K       repeat both timings K times (default 3) and report the median (this machine's speed
+ *                  varies run to run; every run is printed)
+ *   --built        load with the compiled code in dist/ (run `npm run build` first): what the packaged
+ *                  `forehalo` binary runs; by default the TypeScript sources run under tsx
+ *   --in-thread    parse in the loading thread instead of a worker thread
  * Targets: ≥ 300,000 rows/s end to end and ≥ 0.5 of the bare better-sqlite3 insert loop.
  */
-import { createWriteStream, mkdtempSync, rmSync } from 'node:fs';
+import { createWriteStream, existsSync, mkdtempSync, rmSync } from 'node:fs';
 import { cpus, loadavg, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import Database from 'better-sqlite3';
 import { createRng } from '../src/math/index.js';
-import { loadCatalog, openStore } from '../src/store/index.js';
+import * as fromSource from '../src/store/index.js';
 
 const args = process.argv.slice(2);
 const n = Number(args.find((a) => /^\d+$/.test(a)) ?? 1_000_000);
 /** --in-thread: parse in the loading thread instead of a worker (to compare the two). */
 const inThread = args.includes('--in-thread');
+const runsArg = args.indexOf('--runs');
+const runs = runsArg >= 0 ? Math.max(1, Number(args[runsArg + 1])) : 3;
+const built = args.includes('--built');
+const distStore = new URL('../dist/src/store/index.js', import.meta.url);
+if (built && !existsSync(distStore)) {
+  console.error('--built needs the compiled code: run `npm run build` first');
+  process.exit(2);
+}
+const { loadCatalog, openStore } = (built ? await import(distStore.href) : fromSource) as typeof fromSource;
 const dir = mkdtempSync(join(tmpdir(), 'forehalo-bench-'));
 const csv = join(dir, 'synthetic.csv');
 
@@ -61,10 +74,11 @@ async function writeCsv(): Promise<void> {
   await new Promise<void>((res) => out.once('finish', () => res()));
 }
 
-async function main(): Promise<void> {
-  await writeCsv();
-  peakRss = process.memoryUsage.rss(); // from here on: the load only, not the CSV writer
-  const store = openStore(join(dir, 'end-to-end.db'));
+const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
+
+/** One end-to-end load into a fresh database, timed up to and including closing it. */
+async function endToEnd(k: number): Promise<{ rows: number; seconds: number; writeSeconds: number }> {
+  const store = openStore(join(dir, `end-to-end-${k}.db`));
   const t0 = performance.now();
   let lastProgress = t0;
   const summary = await loadCatalog(store, {
@@ -75,19 +89,21 @@ async function main(): Promise<void> {
       lastProgress = performance.now();
     },
   });
-  const loaded = performance.now();
   // Closing is part of the job (a CLI load ends with it), so it is timed too.
   store.close();
-  const endToEnd = (performance.now() - t0) / 1000;
-  const streamS = (lastProgress - t0) / 1000;
-  const tailS = (loaded - lastProgress) / 1000;
-  clearInterval(sampler);
-  const loadPeakRss = peakRss;
+  const seconds = (performance.now() - t0) / 1000;
+  rmSync(join(dir, `end-to-end-${k}.db`), { force: true });
+  return { rows: summary.rows, seconds, writeSeconds: (lastProgress - t0) / 1000 };
+}
 
-  // Bare loop: the same rows, already in memory as values (generated 50k at a time, outside the
-  // timer), one prepared INSERT call per row in 50k-row transactions into a plain table with no
-  // HEALPix index, no checks and no key; close timed as above.
-  const bare = new Database(join(dir, 'bare.db'));
+/**
+ * Bare loop: the same rows, already in memory as values (generated 50k at a time, outside the
+ * timer), one prepared INSERT call per row in 50k-row transactions into a plain table with no
+ * HEALPix index, no checks and no key; close timed as above.
+ */
+function bareLoop(k: number): number {
+  const path = join(dir, `bare-${k}.db`);
+  const bare = new Database(path);
   bare.pragma('journal_mode = WAL');
   bare.pragma('synchronous = NORMAL');
   bare.exec(
@@ -115,22 +131,42 @@ async function main(): Promise<void> {
   const tc = performance.now();
   bare.close();
   bareMs += performance.now() - tc;
-  const bareS = bareMs / 1000;
+  rmSync(path, { force: true });
+  return bareMs / 1000;
+}
 
-  const e2e = summary.rows / endToEnd;
-  const bareRate = n / bareS;
-  console.log(`rows: ${summary.rows} (parsing in ${inThread ? 'the loading thread' : 'a worker thread'})`);
+async function main(): Promise<void> {
+  await writeCsv();
+  peakRss = process.memoryUsage.rss(); // from here on: the loads only, not the CSV writer
+  const loads: { rows: number; seconds: number; writeSeconds: number }[] = [];
+  for (let k = 0; k < runs; k++) loads.push(await endToEnd(k));
+  clearInterval(sampler);
+  const loadPeakRss = peakRss;
+  // The bare loops run after the loads, alternating would not change the medians much but would
+  // mix the peak RSS figures.
+  const bares: number[] = [];
+  for (let k = 0; k < runs; k++) bares.push(bareLoop(k));
+
+  const rates = loads.map((l) => l.rows / l.seconds);
+  const bareRates = bares.map((b) => n / b);
+  const e2e = median(rates);
+  const bareRate = median(bareRates);
+  const typical = loads[rates.indexOf(e2e)];
   console.log(
-    `end to end (CSV → checked, HEALPix-indexed, clustered catalogue): ${endToEnd.toFixed(2)} s, ${Math.round(e2e).toLocaleString('en')} rows/s`,
+    `rows: ${loads[0].rows} (parsing in ${inThread ? 'the loading thread' : 'a worker thread'}; ${built ? 'compiled code from dist/' : 'TypeScript sources under tsx'}; ${runs} run(s) each)`,
+  );
+  const list = (xs: number[]) => xs.map((x) => Math.round(x).toLocaleString('en')).join(' / ');
+  console.log(
+    `end to end (CSV → checked, HEALPix-keyed catalogue, committed and closed): median ${Math.round(e2e).toLocaleString('en')} rows/s (${(loads[0].rows / e2e).toFixed(2)} s); runs: ${list(rates)} rows/s`,
   );
   console.log(
-    `bare better-sqlite3 insert loop: ${bareS.toFixed(2)} s, ${Math.round(bareRate).toLocaleString('en')} rows/s`,
+    `bare better-sqlite3 insert loop: median ${Math.round(bareRate).toLocaleString('en')} rows/s (${(n / bareRate).toFixed(2)} s); runs: ${list(bareRates)} rows/s`,
   );
   console.log(
-    `  of which read + check + stage: ${streamS.toFixed(2)} s; id check, HEALPix-ordered copy, links, commit (WAL checkpoint): ${tailS.toFixed(2)} s; close: ${(endToEnd - streamS - tailS).toFixed(2)} s`,
+    `  median run: read + check + sort + write: ${typical.writeSeconds.toFixed(2)} s; id check, links, commit (WAL checkpoint) and close: ${(typical.seconds - typical.writeSeconds).toFixed(2)} s`,
   );
-  console.log(`ratio end-to-end / bare: ${(e2e / bareRate).toFixed(2)}`);
-  console.log(`peak RSS during the load: ${(loadPeakRss / 2 ** 20).toFixed(0)} MB`);
+  console.log(`ratio end-to-end / bare (medians): ${(e2e / bareRate).toFixed(2)}`);
+  console.log(`peak RSS during the loads: ${(loadPeakRss / 2 ** 20).toFixed(0)} MB`);
   // Other jobs on the machine change every figure above: say how busy it was.
   const [l1, l5] = loadavg();
   console.log(

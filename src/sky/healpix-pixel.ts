@@ -15,9 +15,17 @@ export function ang2pixNest(order: number, raDeg: number, decDeg: number): numbe
   checkOrder(order);
   checkRaDeg(raDeg);
   checkDecDeg(decDeg);
+  return ang2pixNestUnchecked(nsideOf(order), raDeg, decDeg);
+}
+
+/**
+ * ang2pixNest for a position already known to be valid (dec in [−90, 90], finite RA) and a given
+ * Nside: the same arithmetic without the argument checks, for loops over checked catalogue rows.
+ */
+export function ang2pixNestUnchecked(nside: number, raDeg: number, decDeg: number): number {
   const theta = Math.PI / 2 - decDeg * DEG;
   const phi = wrapRaDeg(raDeg) * DEG;
-  return thetaPhiToNest(nsideOf(order), theta, phi);
+  return thetaPhiToNest(nside, theta, phi);
 }
 
 /** Centre [deg] of a nested-scheme pixel. */

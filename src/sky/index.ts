@@ -12,7 +12,7 @@ export {
 export { checkRadiusRad, MAX_LISTED_PIXELS, queryDiscInclusiveNest, unitVector } from './disc-query.js';
 export { gnomonicInverse, gnomonicProject, type StandardCoordinates } from './gnomonic.js';
 export { MAX_ORDER, npixOf, nsideOf, pixelAreaSr, pixelSizeRad } from './healpix-order.js';
-export { ang2pixNest, pix2angNest } from './healpix-pixel.js';
+export { ang2pixNest, ang2pixNestUnchecked, pix2angNest } from './healpix-pixel.js';
 export { maxPixelRadiusRad } from './healpix-radius.js';
 export {
   type ConeRangeOptions,

@@ -1,6 +1,7 @@
 import { NotFoundError } from '../errors.js';
 import { rebuildPhysicalLinks } from './duplicates.js';
 import type { Store } from './open.js';
+import { deleteCatalogGalaxies } from './runs.js';
 import type { CatalogSqlRow } from './statements.js';
 
 /** A stored catalogue as the CLI and the HTTP layer show it. */
@@ -52,7 +53,7 @@ function mustGet(store: Store, name: string): CatalogSqlRow {
 
 export function getCatalog(store: Store, name: string): CatalogDetail {
   const row = mustGet(store, name);
-  const kinds = store.statements.zKindCounts.all(row.catalog_id);
+  const kinds = store.statements.zKindCounts.all({ catalogId: row.catalog_id });
   const count = (k: string) => kinds.find((x) => x.z_kind === k)?.n ?? 0;
   return {
     ...toInfo(row),
@@ -68,6 +69,7 @@ export function dropCatalog(store: Store, name: string): { name: string; rows: n
   return store.db
     .transaction(() => {
       const row = mustGet(store, name);
+      deleteCatalogGalaxies(store.db, row.catalog_id);
       store.statements.deleteCatalog.run(row.catalog_id);
       rebuildPhysicalLinks(store);
       return { name, rows: row.row_count };

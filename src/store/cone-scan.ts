@@ -1,6 +1,7 @@
 import type Database from 'better-sqlite3';
 import type { PixelRange } from '../sky/index.js';
 import { SCAN_GALAXY_COLUMNS } from './galaxy-row.js';
+import { inRunPixels } from './runs.js';
 
 /** Filters applied inside SQLite before a row reaches JavaScript (all bounds inclusive). */
 export interface ScanFilter {
@@ -44,18 +45,19 @@ function scanStatement(
       ? `AND (g.log_mstar >= @minLogMstar OR g.log_mhalo >= @minLogMhalo
            OR (g.log_mstar IS NULL AND g.log_mhalo IS NULL)${linked ? ' OR p.physical_key IS NOT NULL' : ''})`
       : '';
-    // CROSS JOIN keeps the ranges as the outer loop: one index seek per range, then a contiguous
-    // scan of the clustered table; the z, Dec (and, for a catalogue without links, mass) terms are
-    // tested on each row before any join. Without links there is no join at all.
+    // CROSS JOIN keeps runs and ranges as the outer loops: one key seek per run and pixel range,
+    // then a contiguous scan of the table (rows are keyed by run and pixel, see runs.ts); the z, Dec (and, for a catalogue without links,
+    // mass) terms are tested on each row before any join. Without links there is no join at all.
     const link = linked
       ? 'LEFT JOIN physical_link p ON p.catalog_id = g.catalog_id AND p.object_id = g.object_id'
       : '';
     stmt = db
       .prepare(
-        `WITH r (lo, hi) AS (VALUES ${values})
+        `WITH r (lo, hi) AS (VALUES ${values}),
+           k (run) AS (SELECT run FROM galaxy_run WHERE catalog_id = @catalogId)
          SELECT ${SCAN_GALAXY_COLUMNS}, ${linked ? 'p.physical_key' : 'NULL'}
-         FROM r CROSS JOIN galaxy g ${link}
-         WHERE g.catalog_id = @catalogId AND g.hpx BETWEEN r.lo AND r.hi
+         FROM k CROSS JOIN r CROSS JOIN galaxy g ${link}
+         WHERE ${inRunPixels('k.run', 'r.lo', 'r.hi')}
            AND g.z BETWEEN @zMin AND @zMax AND g.dec_deg BETWEEN @decLoDeg AND @decHiDeg ${mass}`,
       )
       .raw(true);

@@ -164,7 +164,7 @@ export function coneSearchBruteForce(store: Store, q: ConeQuery): ConeRow[] {
   const rows: BuildingRow[] = [];
   const linked = new Set<BuildingRow>();
   for (const [catalogId] of catalogsOf(store, q.catalogs)) {
-    for (const sql of store.statements.galaxiesOfCatalog.iterate(catalogId, BIG)) {
+    for (const sql of store.statements.galaxiesOfCatalog.iterate({ catalogId, zMax: BIG })) {
       const r = toGalaxyRow(sql);
       if (r.z < zMin || r.z > zMax || !passesMassHint(q, r as GalaxyRow, sql.physical_key !== null)) continue;
       const row: BuildingRow = { ...r, preferred: true };

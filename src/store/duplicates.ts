@@ -1,6 +1,7 @@
 import { ARCSEC } from '../math/index.js';
 import { angularSeparationArcsec, coneToRanges } from '../sky/index.js';
 import type { MatchOptions, Store } from './open.js';
+import { catalogRows, inRunPixels } from './runs.js';
 import { STORAGE_ORDER } from './storage-order.js';
 
 interface MatchRow {
@@ -38,14 +39,16 @@ export function matchCatalog(store: Store, catalogId: number): number {
     )
     .all(catalogId);
   if (others.length === 0) return 0;
-  const nSelf = (
-    db.prepare('SELECT COUNT(*) AS n FROM galaxy WHERE catalog_id = ?').get(catalogId) as { n: number }
-  ).n;
-  const rowsOf = db.prepare<[number], MatchRow>(
-    'SELECT object_id, ra_deg, dec_deg, z, z_err, z_kind FROM galaxy WHERE catalog_id = ? ORDER BY hpx',
+  const nSelf = store.statements.galaxyCount.get({ catalogId })!;
+  // Probes go in storage order (run, then HEALPix index), so successive look-ups touch nearby pages.
+  const ofCatalog = catalogRows('@catalogId');
+  const rowsOf = db.prepare<[{ catalogId: number }], MatchRow>(
+    `SELECT g.object_id, g.ra_deg, g.dec_deg, g.z, g.z_err, g.z_kind FROM ${ofCatalog.from}
+     WHERE ${ofCatalog.where} ORDER BY k.run, g.gkey`,
   );
-  const inRange = db.prepare<[number, number, number], MatchRow>(
-    'SELECT object_id, ra_deg, dec_deg, z, z_err, z_kind FROM galaxy WHERE catalog_id = ? AND hpx BETWEEN ? AND ?',
+  const inRange = db.prepare<[{ catalogId: number; lo: number; hi: number }], MatchRow>(
+    `SELECT g.object_id, g.ra_deg, g.dec_deg, g.z, g.z_err, g.z_kind FROM galaxy_run k CROSS JOIN galaxy g
+     WHERE k.catalog_id = @catalogId AND ${inRunPixels('k.run', '@lo', '@hi')}`,
   );
   const insert = db.prepare(
     'INSERT OR IGNORE INTO galaxy_match (catalog_a, object_a, catalog_b, object_b, sep_arcsec, dz) VALUES (?, ?, ?, ?, ?, ?)',
@@ -57,9 +60,9 @@ export function matchCatalog(store: Store, catalogId: number): number {
     const selfIsProbe = nSelf <= other.n;
     const probeId = selfIsProbe ? catalogId : other.catalog_id;
     const targetId = selfIsProbe ? other.catalog_id : catalogId;
-    for (const p of rowsOf.iterate(probeId)) {
+    for (const p of rowsOf.iterate({ catalogId: probeId })) {
       for (const [lo, hi] of coneToRanges(STORAGE_ORDER, p.ra_deg, p.dec_deg, radiusRad)) {
-        for (const t of inRange.all(targetId, lo, hi)) {
+        for (const t of inRange.all({ catalogId: targetId, lo, hi })) {
           const sep = angularSeparationArcsec(p.ra_deg, p.dec_deg, t.ra_deg, t.dec_deg);
           if (sep > match.radiusArcsec || !redshiftsCompatible(p, t, match)) continue;
           const [a, b, ca, cb] = probeId < targetId ? [p, t, probeId, targetId] : [t, p, targetId, probeId];

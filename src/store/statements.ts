@@ -1,5 +1,6 @@
 import type Database from 'better-sqlite3';
 import { GALAXY_COLUMNS, type GalaxySqlRow } from './galaxy-row.js';
+import { catalogRows } from './runs.js';
 
 /** A catalogue as stored (snake_case columns of the catalog table). */
 export interface CatalogSqlRow {
@@ -21,6 +22,7 @@ const FROM_GALAXY = `FROM galaxy g JOIN catalog c ON c.catalog_id = g.catalog_id
 
 /** Every statement the store runs more than once, prepared when the store opens. */
 export function prepareStatements(db: Database.Database) {
+  const ofCatalog = catalogRows('@catalogId');
   return {
     catalogByName: db.prepare<[string], CatalogSqlRow>('SELECT * FROM catalog WHERE name = ?'),
     catalogs: db.prepare<[], CatalogSqlRow>('SELECT * FROM catalog ORDER BY name'),
@@ -32,21 +34,31 @@ export function prepareStatements(db: Database.Database) {
     catalogNames: db.prepare<[], { catalog_id: number; name: string }>(
       'SELECT catalog_id, name FROM catalog ORDER BY name',
     ),
+    /** The catalogue row only: its galaxies go first, with deleteCatalogGalaxies (runs.ts). */
     deleteCatalog: db.prepare<[number]>('DELETE FROM catalog WHERE catalog_id = ?'),
     insertCatalog: db.prepare<
       [string, string, string, string, string, number, number, string, string, string]
     >(`INSERT INTO catalog (name, description, source_file, source_sha256, format, row_count, rows_skipped,
         loaded_at, mapping_json, report_json) VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?)`),
-    galaxiesOfCatalog: db.prepare<[number, number], GalaxySqlRow>(
-      `SELECT ${GALAXY_COLUMNS} ${FROM_GALAXY} WHERE g.catalog_id = ? AND g.z <= ?`,
+    galaxiesOfCatalog: db.prepare<[{ catalogId: number; zMax: number }], GalaxySqlRow>(
+      `SELECT ${GALAXY_COLUMNS} FROM ${ofCatalog.from} JOIN catalog c ON c.catalog_id = g.catalog_id
+         LEFT JOIN physical_link p ON p.catalog_id = g.catalog_id AND p.object_id = g.object_id
+       WHERE ${ofCatalog.where} AND g.z <= @zMax`,
     ),
     /** Rows that carry a halo mass (group rows), by id: uses the partial index galaxy_halo_row. */
     haloRowById: db.prepare<[string], GalaxySqlRow>(
       `SELECT ${GALAXY_COLUMNS} ${FROM_GALAXY} WHERE g.object_id = ? AND g.log_mhalo IS NOT NULL`,
     ),
-    zKindCounts: db.prepare<[number], { z_kind: string; n: number; estimated: number }>(
-      'SELECT z_kind, COUNT(*) AS n, SUM(mass_estimated) AS estimated FROM galaxy WHERE catalog_id = ? GROUP BY z_kind',
+    zKindCounts: db.prepare<[{ catalogId: number }], { z_kind: string; n: number; estimated: number }>(
+      `SELECT g.z_kind, COUNT(*) AS n, SUM(g.mass_estimated) AS estimated FROM ${ofCatalog.from}
+       WHERE ${ofCatalog.where} GROUP BY g.z_kind`,
     ),
+    /** Rows stored for a catalogue. */
+    galaxyCount: db
+      .prepare<[{ catalogId: number }], number>(
+        `SELECT COUNT(*) FROM ${ofCatalog.from} WHERE ${ofCatalog.where}`,
+      )
+      .pluck(),
     matchCount: db.prepare<[number, number], { n: number }>(
       'SELECT COUNT(*) AS n FROM galaxy_match WHERE catalog_a = ? OR catalog_b = ?',
     ),

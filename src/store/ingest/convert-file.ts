@@ -1,16 +1,29 @@
-import { createCosmology } from '../../cosmology/index.js';
+import type { CosmologyModel } from '../../cosmology/index.js';
 import { InputError } from '../../errors.js';
+import type { DelimitedRecord } from '../readers/delimited-records.js';
 import type { ColumnInfo, SourceRow } from '../readers/types.js';
 import { type Field, normaliseName } from './fields.js';
+import { createIdFilter } from './id-filter.js';
 import { type ColumnMapping, resolveMapping } from './mapping.js';
 import { openTable, type SourceFormat } from './open-table.js';
+import { type RemovedTwin, sortPart } from './part-sort.js';
 import { MAX_REPORTED_PROBLEMS, ProblemLog, type RowProblem } from './problems.js';
-import { createRowConverter, type IngestDefaults, type StagedRow } from './row-converter.js';
+import { ArrayCells, LineCells, type RowCells } from './row-cells.js';
+import { createRowConverter, type IngestDefaults, type RowConverter } from './row-converter.js';
 import { createBatchBuilder, type StagedBatch } from './staged-batch.js';
 import { guessMassUnit, type MassUnit, massUnitFromString } from './units.js';
 
 /** Source rows read and converted per slice (see convertFile and READ_CHUNK_BYTES in readers/csv.ts). */
 const READ_ROWS = 1000;
+/** Rows whose stellar-mass values decide a log/linear guess (see chooseMassUnit). */
+const MASS_GUESS_ROWS = 10_000;
+/** Rows of the first part (later parts have batchSize rows). */
+const FIRST_PART_ROWS = 4096;
+/** What a reader yields: decoded rows, or (CSV/TSV) records with unquoted lines kept whole. */
+type SourceItem = SourceRow | DelimitedRecord;
+
+/** Exact twins listed by position (enough for any report; the count is always complete). */
+const MAX_LISTED_TWINS = 10_000;
 
 /** Everything needed to turn a catalogue file into staged rows (plain data: it crosses to a worker). */
 export interface ConvertInput {
@@ -20,8 +33,13 @@ export interface ConvertInput {
   delimiter?: string;
   explicitMap: Partial<Record<Field, string>>;
   defaults: IngestDefaults;
+  /** Source rows per part: each part is sorted into storage order and handed over as one batch. */
   batchSize: number;
   skipInvalid: boolean;
+  /** Rough number of rows in the file (sizes the duplicate-id filter; see id-filter.ts). */
+  expectedRows?: number;
+  /** Also compute the file's SHA-256 (the parsing worker does it alongside, off the loading thread). */
+  hashFile?: boolean;
 }
 
 export interface ConvertHeader {
@@ -49,6 +67,16 @@ export interface ConvertEnd {
   rowsRead: number;
   /** Reading stopped early: problems were found, skipInvalid is off, and the report is full. */
   stopped: boolean;
+  /** Ids that may occur more than once (a superset of the repeated ids, settled by the caller). */
+  idCandidates: string[];
+  /** Too many candidates to list: the caller must check all ids of the load. */
+  idCheckAll: boolean;
+  /** Rows left out of their part as exact twins (same pixel and id) of an earlier row (first 10,000). */
+  removedTwins: RemovedTwin[];
+  /** Number of such rows (all of them). */
+  removedTwinCount: number;
+  /** The file's SHA-256 (hex) when hashFile was asked for and the parsing worker computed it. */
+  sha256?: string;
 }
 
 export interface ConvertSink {
@@ -61,7 +89,11 @@ export interface ConvertSink {
  * Read, check and convert a catalogue file batch by batch. No SQL here, so the same code runs in the
  * loading thread or in a worker thread that parses while the main thread writes.
  */
-export async function convertFile(input: ConvertInput, sink: ConvertSink): Promise<ConvertEnd> {
+export async function convertFile(
+  input: ConvertInput,
+  sink: ConvertSink,
+  signal?: AbortSignal,
+): Promise<ConvertEnd> {
   const table = await openTable(input.path, input.fileName, input.format, input.delimiter);
   const log = new ProblemLog();
   const counts: ConvertCounts = {
@@ -72,18 +104,40 @@ export async function convertFile(input: ConvertInput, sink: ConvertSink): Promi
   };
   let rowsRead = 0;
   let stopped = false;
+  const ids = createIdFilter(input.expectedRows ?? 100_000);
+  const removedTwins: RemovedTwin[] = [];
+  let removedTwinCount = 0;
   try {
     const mapping = resolveMapping(table.columns, input.explicitMap);
-    const cosmology = createCosmology('planck18');
-    let convert: ((row: SourceRow) => StagedRow | null) | undefined;
+    // Distances are needed only to estimate masses from g and i; the cosmology module (and zod,
+    // which it loads) is imported only then, which saves the parsing worker ~0.1 s of start-up.
+    let cosmology: CosmologyModel | undefined;
+    if (mapping.index.g !== undefined && mapping.index.i !== undefined) {
+      const { createCosmology } = await import('../../cosmology/index.js');
+      cosmology = createCosmology('planck18');
+    }
+    let convert: RowConverter | undefined;
     // Rows are read in small slices and converted at once, so the parsed cells die young in the
     // V8 heap; converted rows collect in columns and go to the sink batchSize source rows at a time.
-    const rows = table.batches(Math.min(READ_ROWS, input.batchSize))[Symbol.asyncIterator]();
+    // A CSV/TSV file is read as records whose unquoted lines are decoded in place (row-cells.ts).
+    const rows = (
+      table.delimited ? table.delimited.records() : table.batches(Math.min(READ_ROWS, input.batchSize))
+    )[Symbol.asyncIterator]();
+    const delimiter = table.delimited?.delimiter ?? ',';
+    const lineCells = new LineCells(delimiter);
+    const arrayCells = new ArrayCells();
+    /** The cells of a slice's k-th item (reused objects: read before asking for the next). */
+    const cellsOf = (item: SourceItem): RowCells => {
+      if ('values' in item) return arrayCells.reset(item.values);
+      if (item.text !== undefined) return lineCells.reset(item.text);
+      return arrayCells.reset(item.fields.map((f) => (f === '' ? null : f)));
+    };
+    const positionOf = (item: SourceItem): number => ('values' in item ? item.position : item.line);
     try {
-      // The mass unit is guessed from the first batchSize rows, as they come.
-      const first: SourceRow[] = [];
+      // The mass unit is guessed from the first rows (up to MASS_GUESS_ROWS), as they come.
+      const first: SourceItem[] = [];
       let ended = false;
-      while (first.length < input.batchSize) {
+      while (first.length < Math.min(input.batchSize, MASS_GUESS_ROWS)) {
         const next = await rows.next();
         if (next.done) {
           ended = true;
@@ -93,11 +147,12 @@ export async function convertFile(input: ConvertInput, sink: ConvertSink): Promi
       }
       if (first.length > 0) {
         const warnings: string[] = [];
+        const massIndex = mapping.index.log_mstar;
         const { massUnit, massUnitHow } = chooseMassUnit(
           input.defaults.massUnit,
-          mapping.index.log_mstar,
+          massIndex,
           table.columns,
-          first,
+          () => first.map((item) => Number(cellsOf(item).raw(massIndex!) ?? Number.NaN)),
           warnings,
         );
         sink.header({
@@ -115,27 +170,37 @@ export async function convertFile(input: ConvertInput, sink: ConvertSink): Promi
           positionKind: table.positionKind,
           defaults: input.defaults,
           massUnit,
-          luminosityDistanceMpc: (z) => cosmology.luminosityDistanceMpc(z),
+          luminosityDistanceMpc: (z) => cosmology!.luminosityDistanceMpc(z),
           problems: log,
           counts,
         });
       }
       const good = createBatchBuilder(input.batchSize);
       let readSinceFlush = 0;
+      // The first part is small, so the loading thread starts writing while the worker reads on.
+      let partRows = Math.min(input.batchSize, FIRST_PART_ROWS);
       /** Hand the batch to the sink; true when reading should stop (problems and no skipInvalid). */
       const flush = async (): Promise<boolean> => {
         const rejecting = log.count > 0 && !input.skipInvalid;
         const batch = good.take();
         readSinceFlush = 0;
-        await sink.batch(rejecting ? createBatchBuilder(0).take() : batch, rowsRead);
+        partRows = input.batchSize;
+        if (rejecting) {
+          await sink.batch(createBatchBuilder(0).take(), rowsRead);
+        } else {
+          const { part, removed } = sortPart(batch);
+          removedTwinCount += removed.length;
+          for (const r of removed) if (removedTwins.length < MAX_LISTED_TWINS) removedTwins.push(r);
+          await sink.batch(part, rowsRead);
+        }
         return rejecting && log.problems.length >= MAX_REPORTED_PROBLEMS;
       };
-      const convertSlice = async (slice: readonly SourceRow[]): Promise<boolean> => {
-        for (const row of slice) {
-          const r = convert!(row);
-          if (r) good.push(r);
+      const convertSlice = async (slice: readonly SourceItem[]): Promise<boolean> => {
+        signal?.throwIfAborted();
+        for (const item of slice) {
+          if (convert!.cells(cellsOf(item), positionOf(item), good)) ids.add(good.lastId());
           rowsRead++;
-          if (++readSinceFlush === input.batchSize && (await flush())) return true;
+          if (++readSinceFlush === partRows && (await flush())) return true;
         }
         return false;
       };
@@ -165,22 +230,33 @@ export async function convertFile(input: ConvertInput, sink: ConvertSink): Promi
   } finally {
     await table.close();
   }
-  return { problems: log.problems, problemCount: log.count, badRows: log.badRows, counts, rowsRead, stopped };
+  return {
+    problems: log.problems,
+    problemCount: log.count,
+    badRows: log.badRows,
+    counts,
+    rowsRead,
+    stopped,
+    idCandidates: [...ids.candidates],
+    idCheckAll: ids.overflowed,
+    removedTwins,
+    removedTwinCount,
+  };
 }
 
 function chooseMassUnit(
   option: MassUnit | undefined,
   massIndex: number | undefined,
   columns: readonly ColumnInfo[],
-  firstBatch: SourceRow[],
+  /** The mass column's values in the first rows, as numbers (called only when they are needed). */
+  firstValues: () => number[],
   warnings: string[],
 ): { massUnit: MassUnit; massUnitHow: string } {
   if (option) return { massUnit: option, massUnitHow: 'option' };
   if (massIndex === undefined) return { massUnit: 'log', massUnitHow: 'no stellar-mass column' };
   const fromUnit = massUnitFromString(columns[massIndex].unit);
   if (fromUnit) return { massUnit: fromUnit, massUnitHow: `column unit '${columns[massIndex].unit}'` };
-  const values = firstBatch.map((r) => Number(r.values[massIndex] ?? Number.NaN));
-  const guess = guessMassUnit(values);
+  const guess = guessMassUnit(firstValues());
   const name = columns[massIndex].name;
   if (/^(log|lmass|lmstar)/.test(normaliseName(name))) {
     if (guess === 'linear' || guess === 'mixed') {

@@ -37,7 +37,11 @@ function rebuild(e: WorkerError): Error {
 }
 
 /** Run convertFile in a worker thread; the sink runs here (the thread that owns the database). */
-export function convertInWorker(input: ConvertInput, sink: ConvertSink): Promise<ConvertEnd> {
+export function convertInWorker(
+  input: ConvertInput,
+  sink: ConvertSink,
+  signal?: AbortSignal,
+): Promise<ConvertEnd> {
   const file = workerFile();
   if (!file || (!file.pathname.endsWith('.js') && !process.execArgv.some((a) => a.includes('tsx')))) {
     return Promise.reject(new WorkerUnavailableError('no loadable worker entry'));
@@ -88,6 +92,7 @@ export function convertInWorker(input: ConvertInput, sink: ConvertSink): Promise
         }
       },
     );
+    signal?.addEventListener('abort', () => finish(() => reject(signal.reason)), { once: true });
     worker.on('error', (e) => finish(() => reject(started ? e : new WorkerUnavailableError(e.message))));
     worker.on('exit', (code) =>
       finish(() => reject(new Error(`the parsing worker stopped (exit code ${code})`))),

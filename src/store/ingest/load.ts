@@ -1,7 +1,10 @@
+import { statSync } from 'node:fs';
 import type { Readable } from 'node:stream';
+import type Database from 'better-sqlite3';
 import { ConflictError, InputError } from '../../errors.js';
 import { matchCatalog, rebuildPhysicalLinks } from '../duplicates.js';
 import type { Store } from '../open.js';
+import { allocateRun, deleteCatalogGalaxies, inRun, inRunPixels } from '../runs.js';
 import { STORAGE_ORDER } from '../storage-order.js';
 import {
   type ConvertEnd,
@@ -11,13 +14,15 @@ import {
   convertFile,
 } from './convert-file.js';
 import { convertInWorker, WorkerUnavailableError } from './convert-in-worker.js';
+import { estimateRowCount } from './estimate-rows.js';
 import type { Field } from './fields.js';
 import { parseMapSpec } from './mapping.js';
 import type { SourceFormat } from './open-table.js';
+import { MAX_PART_ROWS } from './part-sort.js';
+import { createPartWriter } from './part-writer.js';
 import { ProblemLog, type RowProblem } from './problems.js';
 import type { IngestDefaults } from './row-converter.js';
-import { resolveSource } from './source-file.js';
-import { createStage } from './stage.js';
+import { resolveSource, type SourceFile } from './source-file.js';
 import { TAYLOR2011 } from './taylor2011.js';
 
 export type LoadMode = 'create' | 'replace' | 'append';
@@ -40,7 +45,10 @@ export interface LoadOptions {
   defaults?: IngestDefaults;
   /** Called after each batch with the number of source rows read so far. */
   onProgress?: (rowsRead: number) => void;
-  /** Rows per staged batch (default 10,000: small batches die young in the V8 heap, keeping memory flat). */
+  /**
+   * Source rows per part (default: 32k–256k rows by file size, see rowsPerPart). Each part is sorted
+   * into storage order and appended as a unit; cone searches scan once per part.
+   */
   batchSize?: number;
   /**
    * Parse and check in a worker thread while this thread writes (default true; falls back to this
@@ -98,16 +106,32 @@ function rejectRows(log: ProblemLog, complete: boolean, fileName: string): never
   );
 }
 
+/** Loads on one connection run one after another (each holds the connection's write transaction). */
+const loadQueues = new WeakMap<Database.Database, Promise<unknown>>();
+const loading = new WeakSet<Database.Database>();
+
+/** True while a load holds this connection's write transaction (other writes must wait). */
+export function loadInProgress(db: Database.Database): boolean {
+  return loading.has(db);
+}
+
+/** Stands in the catalogue row, inside the load's transaction, until the file's SHA-256 is known. */
+const PENDING_SHA256 = '0'.repeat(64);
+
+/** How long a load waits for another process's write to finish before giving up [ms]. */
+const WRITE_LOCK_WAIT_MS = 300_000;
+
 /**
- * Load a catalogue file into the store as one atomic step. Rows stream through the reader, are
- * checked and converted (positions to degrees, masses to log10 M☉, σ/(1+z) to σ, colour-based
- * masses where needed), staged in a private temp table, and copied into the clustered galaxy table
- * in one final transaction together with the catalogue row and the duplicate links. Until that
- * commit nothing of the load is visible; a crash at any point leaves the previous state.
+ * Load a catalogue file into the store as one atomic step. Rows stream through the reader in a
+ * worker thread, are checked and converted (positions to degrees, masses to log10 M☉, σ/(1+z) to
+ * σ, colour-based masses where needed), and are sorted part by part into storage order; this
+ * thread appends each part to the clustered galaxy table inside ONE write transaction that also
+ * holds the catalogue row, the duplicate-id check and the cross-catalogue links. Until its commit
+ * nothing of the load is visible to other connections; an error rolls it back, and a crash (even
+ * SIGKILL) leaves the previous state, since SQLite ignores uncommitted WAL frames on recovery.
+ * While a load runs, this connection holds the database's write lock: other writers wait.
  */
 export async function loadCatalog(store: Store, options: LoadOptions): Promise<LoadSummary> {
-  const { db, statements } = store;
-  const mode = options.mode ?? 'create';
   checkCatalogName(options.name);
   const defaults = options.defaults ?? {};
   if (defaults.zErr !== undefined && !(Number.isFinite(defaults.zErr) && defaults.zErr >= 0)) {
@@ -116,13 +140,131 @@ export async function loadCatalog(store: Store, options: LoadOptions): Promise<L
     });
   }
   const explicitMap = typeof options.map === 'string' ? parseMapSpec(options.map) : (options.map ?? {});
-
   const src = await resolveSource(options.source, options.fileName);
+  try {
+    const previous = loadQueues.get(store.db) ?? Promise.resolve();
+    const run = previous.then(() => loadLocked(store, options, src, defaults, explicitMap));
+    loadQueues.set(
+      store.db,
+      run.catch(() => undefined),
+    );
+    return await run;
+  } finally {
+    src.dispose();
+  }
+}
+
+/**
+ * Rows per part from the expected row count: 32k rows up to about a million rows, growing to 256k
+ * for ten million, so a catalogue has at most ~40 parts (a cone search seeks once per part and
+ * range). Small parts keep the parsing thread fast: a part's ids stay alive in the V8 young
+ * generation until it is handed over, and scavenges copy them (bench/load.ts: 131k-row parts parsed
+ * ~25 % slower than 32k-row parts).
+ */
+function rowsPerPart(expectedRows: number): number {
+  let rows = 2 ** 15;
+  while (rows < expectedRows / 32 && rows < 2 ** 18) rows *= 2;
+  return rows;
+}
+
+function beginImmediate(db: Database.Database): void {
+  const wait = db.pragma('busy_timeout', { simple: true }) as number;
+  db.pragma(`busy_timeout = ${WRITE_LOCK_WAIT_MS}`);
+  try {
+    db.exec('BEGIN IMMEDIATE');
+  } finally {
+    db.pragma(`busy_timeout = ${wait}`);
+  }
+}
+
+async function loadLocked(
+  store: Store,
+  options: LoadOptions,
+  src: SourceFile,
+  defaults: IngestDefaults,
+  explicitMap: Partial<Record<Field, string>>,
+): Promise<LoadSummary> {
+  const { db, statements } = store;
+  const mode = options.mode ?? 'create';
   const warnings: string[] = [];
+  const expectedRows = estimateRowCount(src.path) ?? Math.max(1, Math.round(statSync(src.path).size / 64));
+  const input: ConvertInput = {
+    path: src.path,
+    fileName: src.fileName,
+    format: options.format,
+    delimiter: options.delimiter,
+    explicitMap,
+    defaults,
+    batchSize: Math.min(options.batchSize ?? rowsPerPart(expectedRows), MAX_PART_ROWS),
+    skipInvalid: options.skipInvalid ?? false,
+    expectedRows,
+    hashFile: !src.sha256Known,
+  };
+  const skipInvalid = input.skipInvalid;
+
+  // Parsing starts at once, in a worker thread, while this thread hashes the file and opens the
+  // write transaction; parts wait (the worker is at most two ahead) until the catalogue row exists.
+  let target: { catalogId: number; runs: number[] } | undefined;
+  let opened!: () => void;
+  const ready = new Promise<void>((resolve) => {
+    opened = resolve;
+  });
+  let rowsWritten = 0;
+  const writer = createPartWriter(db);
+  let header: ConvertHeader | undefined;
+  const sink: ConvertSink = {
+    header: (h) => {
+      header = h;
+      warnings.push(...h.warnings);
+    },
+    batch: async (rows, rowsRead) => {
+      if (!target) await ready;
+      abort.signal.throwIfAborted();
+      if (rows.length > 0) {
+        // Each part is one run: its own key range, appended in key order (see runs.ts).
+        const run = allocateRun(db, target!.catalogId);
+        target!.runs.push(run);
+        rowsWritten += writer.write(target!.catalogId, run, rows);
+      }
+      options.onProgress?.(rowsRead);
+    },
+  };
+  const abort = new AbortController();
+  // A load given up before its transaction opened must not leave a part waiting forever.
+  abort.signal.addEventListener('abort', () => opened(), { once: true });
+  let parsedInWorker = false;
+  const converting = (async (): Promise<ConvertEnd> => {
+    if (options.parseInWorker ?? true) {
+      try {
+        const end = await convertInWorker(input, sink, abort.signal);
+        parsedInWorker = true;
+        return end;
+      } catch (err) {
+        if (!(err instanceof WorkerUnavailableError)) throw err;
+      }
+    }
+    return convertFile(input, sink, abort.signal);
+  })();
+  converting.catch(() => {}); // settled below; never an unhandled rejection meanwhile
+
+  try {
+    beginImmediate(db);
+  } catch (err) {
+    abort.abort(err);
+    await converting.catch(() => {});
+    throw err;
+  }
+  loading.add(db);
   try {
     const existing = statements.catalogByName.get(options.name);
-    if (existing && existing.source_sha256 === src.sha256 && mode !== 'replace') {
-      return unchanged(store, options.name, src.sha256, existing.format, mode);
+    // The file's hash is still being computed; it is needed now only when the name is taken (it
+    // tells a repeated load from a conflict), otherwise when the catalogue row is completed.
+    let sha256 = existing ? await src.sha256() : PENDING_SHA256;
+    if (existing && existing.source_sha256 === sha256 && mode !== 'replace') {
+      abort.abort(new Error('unchanged'));
+      await converting.catch(() => {});
+      db.exec('ROLLBACK');
+      return unchanged(store, options.name, sha256, existing.format, mode);
     }
     if (existing && mode === 'create') {
       throw new ConflictError(
@@ -133,132 +275,222 @@ export async function loadCatalog(store: Store, options: LoadOptions): Promise<L
     }
     if (!existing && mode !== 'create')
       warnings.push(`catalogue '${options.name}' did not exist; created it`);
-
-    const input: ConvertInput = {
-      path: src.path,
-      fileName: src.fileName,
-      format: options.format,
-      delimiter: options.delimiter,
-      explicitMap,
-      defaults,
-      batchSize: options.batchSize ?? 10_000,
-      skipInvalid: options.skipInvalid ?? false,
-    };
-    const skipInvalid = input.skipInvalid;
-    const stage = createStage(db);
-    try {
-      let header: ConvertHeader | undefined;
-      const sink: ConvertSink = {
-        header: (h) => {
-          header = h;
-          warnings.push(...h.warnings);
-        },
-        batch: (rows, rowsRead) => {
-          if (rows.length > 0) stage.insertMany(rows);
-          options.onProgress?.(rowsRead);
-        },
-      };
-      let end: ConvertEnd;
-      let parsedInWorker = false;
-      if (options.parseInWorker ?? true) {
-        try {
-          end = await convertInWorker(input, sink);
-          parsedInWorker = true;
-        } catch (err) {
-          if (!(err instanceof WorkerUnavailableError)) throw err;
-          end = await convertFile(input, sink);
-        }
-      } else {
-        end = await convertFile(input, sink);
-      }
-      const table = header!;
-      const mapping = table.mapping;
-      const log = new ProblemLog();
-      for (const p of end.problems) log.add(p);
-      log.count = end.problemCount;
-      log.badRows = end.badRows;
-      const counts = end.counts;
-      const { massUnit, massUnitHow } = table;
-      if (end.rowsRead === 0) {
-        throw new InputError('no_rows', `${src.fileName} has a header but no data rows`, {
-          file: src.fileName,
-        });
-      }
-      if (log.count > 0 && !skipInvalid) rejectRows(log, !end.stopped, src.fileName);
-
-      const mappingRecord = {
-        columns: mapping.column,
-        recognisedBy: mapping.how,
-        units: {
-          ra: table.columns[mapping.index.ra!].unit ?? 'deg (decimal or sexagesimal hours)',
-          dec: table.columns[mapping.index.dec!].unit ?? 'deg (decimal or sexagesimal)',
-          logMstar: massUnit,
-          logMstarUnitFrom: massUnitHow,
-          photoZErr: defaults.zErrKind ?? 'sigma',
-        },
-        defaults,
-        storageOrder: STORAGE_ORDER,
-        delimiter: options.delimiter,
-        parsedInWorker,
-      };
-      addWarnings(warnings, counts);
-
-      // Ids must be unique within the file (and so within the catalogue, since an append replaces
-      // rows by id). Checked on the staged rows with one GROUP BY before anything is committed.
-      const duplicateIds = stage.duplicateIds();
-      if (duplicateIds.length > 0) {
-        for (const d of duplicateIds) {
-          for (const pos of d.positions.slice(1)) {
-            log.add({
-              position: pos,
-              positionKind: table.positionKind,
-              column: mapping.column.id ?? 'id',
-              value: d.objectId,
-              reason: `duplicate id (first at ${table.positionKind} ${d.positions[0]})`,
-            });
-          }
-        }
-        if (!skipInvalid) rejectRows(log, true, src.fileName);
-        log.badRows += stage.dropLaterDuplicates();
-      }
-      const result = commit(store, {
-        name: options.name,
-        description: options.description,
-        mode: existing ? mode : 'create',
-        fileName: src.fileName,
-        sha256: src.sha256,
-        format: table.format,
-        stage: stage.table,
-        mapping: mappingRecord,
-        report: {
-          problemCount: log.count,
-          problems: log.problems,
-          skippedRows: log.badRows,
-          duplicateIds,
-          warnings,
-        },
-      });
-      const outcome = !existing ? 'loaded' : mode === 'replace' ? 'replaced' : 'appended';
-      return {
-        name: options.name,
-        outcome,
-        rows: result.stored,
-        totalRows: result.total,
-        skipped: log.badRows,
-        sha256: src.sha256,
-        format: table.format,
-        warnings,
-        report: { problemCount: log.count, problems: log.problems, skippedRows: log.badRows, duplicateIds },
-        mapping: mappingRecord,
-        duplicatePairs: result.pairs,
-        message: `${outcome} catalogue '${options.name}': ${result.stored} rows stored${log.badRows ? `, ${log.badRows} skipped` : ''}, ${result.total} in total`,
-      };
-    } finally {
-      stage.drop();
+    const appending = existing !== undefined && mode === 'append';
+    if (existing && !appending) {
+      deleteCatalogGalaxies(db, existing.catalog_id);
+      statements.deleteCatalog.run(existing.catalog_id);
     }
+    const catalogId = appending
+      ? existing.catalog_id
+      : Number(
+          statements.insertCatalog.run(
+            options.name,
+            options.description ?? existing?.description ?? '',
+            src.fileName,
+            sha256,
+            'csv', // placeholder until the reader has said what the file is (set below)
+            0,
+            0,
+            new Date().toISOString(),
+            '{}',
+            '{}',
+          ).lastInsertRowid,
+        );
+    target = { catalogId, runs: [] };
+    opened();
+    const end = await converting;
+    sha256 = end.sha256 ?? (await src.sha256());
+    const table = header!;
+    const mapping = table.mapping;
+    const log = new ProblemLog();
+    for (const p of end.problems) log.add(p);
+    log.count = end.problemCount;
+    log.badRows = end.badRows;
+    const { massUnit, massUnitHow } = table;
+    if (end.rowsRead === 0) {
+      throw new InputError('no_rows', `${src.fileName} has a header but no data rows`, {
+        file: src.fileName,
+      });
+    }
+    if (log.count > 0 && !skipInvalid) rejectRows(log, !end.stopped, src.fileName);
+
+    const mappingRecord = {
+      columns: mapping.column,
+      recognisedBy: mapping.how,
+      units: {
+        ra: table.columns[mapping.index.ra!].unit ?? 'deg (decimal or sexagesimal hours)',
+        dec: table.columns[mapping.index.dec!].unit ?? 'deg (decimal or sexagesimal)',
+        logMstar: massUnit,
+        logMstarUnitFrom: massUnitHow,
+        photoZErr: defaults.zErrKind ?? 'sigma',
+      },
+      defaults,
+      storageOrder: STORAGE_ORDER,
+      delimiter: options.delimiter,
+      parsedInWorker,
+    };
+    addWarnings(warnings, end.counts);
+
+    // Ids must be unique within the file (and so within the catalogue, since an append replaces
+    // rows by id): the parsing side named the candidates, settled here against the stored rows.
+    const runs = JSON.stringify(target.runs);
+    const repeats = repeatedIds(db, runs, end);
+    const duplicateIds = repeats.slice(0, 100).map((d) => ({ objectId: d.objectId, positions: d.positions }));
+    let removedAsDuplicates = 0;
+    if (repeats.length > 0) {
+      for (const d of repeats) {
+        for (const pos of d.positions.slice(1)) {
+          log.add({
+            position: pos,
+            positionKind: table.positionKind,
+            column: mapping.column.id ?? 'id',
+            value: d.objectId,
+            reason: `duplicate id (first at ${table.positionKind} ${d.positions[0]})`,
+          });
+        }
+      }
+      if (!skipInvalid) rejectRows(log, true, src.fileName);
+      removedAsDuplicates = dropLaterOccurrences(db, repeats) + end.removedTwinCount;
+      log.badRows += removedAsDuplicates;
+    }
+    const stored = rowsWritten - (removedAsDuplicates - end.removedTwinCount);
+    if (appending) {
+      // An appended row replaces the stored row with its id (rows of the catalogue's earlier runs).
+      db.prepare(
+        `DELETE FROM galaxy WHERE gkey IN (
+           SELECT g.gkey FROM galaxy_run k CROSS JOIN galaxy g
+           WHERE k.catalog_id = @catalogId AND k.run NOT IN (SELECT value FROM json_each(@runs))
+             AND ${inRun('k.run')}
+             AND g.object_id IN (SELECT n.object_id FROM ${NEW_ROWS} n WHERE ${inRun('r.run', 'n')}))`,
+      ).run({ catalogId, runs });
+      // Runs left empty are freed (run numbers are a finite resource).
+      db.prepare(
+        `DELETE FROM galaxy_run WHERE catalog_id = @catalogId
+           AND NOT EXISTS (SELECT 1 FROM galaxy g WHERE ${inRun('galaxy_run.run')})`,
+      ).run({ catalogId });
+    }
+    const total = appending ? statements.galaxyCount.get({ catalogId })! : stored;
+    const report = {
+      problemCount: log.count,
+      problems: log.problems,
+      skippedRows: log.badRows,
+      duplicateIds,
+      warnings,
+    };
+    db.prepare(
+      `UPDATE catalog SET source_file = ?, source_sha256 = ?, format = ?, row_count = ?,
+         rows_skipped = ${appending ? 'rows_skipped + ' : ''}?, loaded_at = ?, mapping_json = ?, report_json = ?,
+         description = coalesce(?, description) WHERE catalog_id = ?`,
+    ).run(
+      src.fileName,
+      sha256,
+      table.format,
+      total,
+      log.badRows,
+      new Date().toISOString(),
+      JSON.stringify(mappingRecord),
+      JSON.stringify(report),
+      options.description ?? null,
+      catalogId,
+    );
+    const pairs = matchCatalog(store, catalogId);
+    rebuildPhysicalLinks(store);
+    db.exec('COMMIT');
+
+    const outcome = !existing ? 'loaded' : mode === 'replace' ? 'replaced' : 'appended';
+    return {
+      name: options.name,
+      outcome,
+      rows: stored,
+      totalRows: total,
+      skipped: log.badRows,
+      sha256: sha256,
+      format: table.format,
+      warnings,
+      report: { problemCount: log.count, problems: log.problems, skippedRows: log.badRows, duplicateIds },
+      mapping: mappingRecord,
+      duplicatePairs: pairs,
+      message: `${outcome} catalogue '${options.name}': ${stored} rows stored${log.badRows ? `, ${log.badRows} skipped` : ''}, ${total} in total`,
+    };
+  } catch (err) {
+    abort.abort(err);
+    await converting.catch(() => {});
+    if (db.inTransaction) db.exec('ROLLBACK');
+    throw err;
   } finally {
-    src.dispose();
+    loading.delete(db);
   }
+}
+
+interface Occurrence {
+  position: number;
+  /** Where the row is stored (absent for a twin left out of its part). */
+  key?: { run: number; hpx: number };
+}
+
+interface RepeatedId {
+  objectId: string;
+  /** Every line/row where the id occurs, ascending (the first is kept). */
+  positions: number[];
+  occurrences: Occurrence[];
+}
+
+/** SQL: the rows n of this load's runs (bound as the JSON array @runs), with their run r.run. */
+const NEW_ROWS = '(SELECT value AS run FROM json_each(@runs)) r CROSS JOIN galaxy';
+
+/** Ids of this load (its runs, a JSON array) that occur more than once, with every occurrence. */
+function repeatedIds(db: Database.Database, runs: string, end: ConvertEnd): RepeatedId[] {
+  const byId = new Map<string, Occurrence[]>();
+  const note = (id: string, o: Occurrence) => {
+    const list = byId.get(id);
+    if (list) list.push(o);
+    else byId.set(id, [o]);
+  };
+  if (end.idCheckAll || end.idCandidates.length > 0) {
+    const rows = end.idCheckAll
+      ? db
+          .prepare(
+            `SELECT n.object_id, n.run, n.hpx, n.source_position FROM ${NEW_ROWS} n
+             WHERE ${inRun('r.run', 'n')} AND n.object_id IN (
+               SELECT n.object_id FROM ${NEW_ROWS} n WHERE ${inRun('r.run', 'n')}
+               GROUP BY n.object_id HAVING COUNT(*) > 1)`,
+          )
+          .raw(true)
+          .all({ runs })
+      : db
+          .prepare(
+            `SELECT n.object_id, n.run, n.hpx, n.source_position FROM ${NEW_ROWS} n
+             WHERE ${inRun('r.run', 'n')} AND n.object_id IN (SELECT value FROM json_each(@candidates))`,
+          )
+          .raw(true)
+          .all({ runs, candidates: JSON.stringify(end.idCandidates) });
+    for (const r of rows as [string, number, number, number][]) {
+      note(r[0], { position: r[3], key: { run: r[1], hpx: r[2] } });
+    }
+  }
+  for (const t of end.removedTwins) note(t.objectId, { position: t.position });
+  const out: RepeatedId[] = [];
+  for (const [objectId, occurrences] of byId) {
+    if (occurrences.length < 2) continue;
+    occurrences.sort((a, b) => a.position - b.position);
+    out.push({ objectId, positions: occurrences.map((o) => o.position), occurrences });
+  }
+  return out.sort((a, b) => a.positions[1] - b.positions[1]);
+}
+
+/** Keep the first occurrence of each repeated id; returns how many stored rows were deleted. */
+function dropLaterOccurrences(db: Database.Database, repeats: readonly RepeatedId[]): number {
+  const del = db.prepare<[{ run: number; hpx: number; id: string; position: number }]>(
+    `DELETE FROM galaxy WHERE ${inRunPixels('@run', '@hpx', '@hpx', 'galaxy')}
+       AND object_id = @id AND source_position = @position`,
+  );
+  let n = 0;
+  for (const d of repeats) {
+    for (const o of d.occurrences.slice(1)) {
+      if (o.key) n += del.run({ ...o.key, id: d.objectId, position: o.position }).changes;
+    }
+  }
+  return n;
 }
 
 function unchanged(
@@ -309,91 +541,4 @@ function addWarnings(
       `${counts.estimatedBeyondCalibration} estimated mass(es) at z > ${TAYLOR2011.zMaxCalibrated}, beyond the calibration of the colour relation`,
     );
   }
-}
-
-interface CommitInput {
-  name: string;
-  description?: string;
-  mode: LoadMode;
-  fileName: string;
-  sha256: string;
-  format: SourceFormat;
-  stage: string;
-  mapping: Record<string, unknown>;
-  report: LoadReport & { warnings: string[] };
-}
-
-const GALAXY_COLS =
-  'hpx, object_id, ra_deg, dec_deg, z, z_err, z_kind, log_mstar, log_mstar_err, mass_estimated, g_mag, i_mag, log_mhalo, mhalo_def, log_mhalo_err, group_id, source_position';
-
-/** The one transaction that makes a load visible (or changes nothing if it throws). */
-function commit(store: Store, c: CommitInput): { stored: number; total: number; pairs: number } {
-  const { db, statements } = store;
-  return db
-    .transaction(() => {
-      const old = statements.catalogByName.get(c.name);
-      const now = new Date().toISOString();
-      const mappingJson = JSON.stringify(c.mapping);
-      const reportJson = JSON.stringify(c.report);
-      let catalogId: number;
-      let stored: number;
-      if (old && c.mode === 'append') {
-        catalogId = old.catalog_id;
-        db.prepare(
-          `DELETE FROM galaxy WHERE catalog_id = ? AND object_id IN (SELECT object_id FROM ${c.stage})`,
-        ).run(catalogId);
-        stored = db
-          .prepare(
-            `INSERT INTO galaxy (catalog_id, ${GALAXY_COLS}) SELECT ?, ${GALAXY_COLS} FROM ${c.stage} ORDER BY hpx, object_id`,
-          )
-          .run(catalogId).changes;
-        const total = (
-          db.prepare('SELECT COUNT(*) AS n FROM galaxy WHERE catalog_id = ?').get(catalogId) as { n: number }
-        ).n;
-        db.prepare(
-          `UPDATE catalog SET source_file = ?, source_sha256 = ?, format = ?, row_count = ?, rows_skipped = rows_skipped + ?,
-             loaded_at = ?, mapping_json = ?, report_json = ?, description = coalesce(?, description) WHERE catalog_id = ?`,
-        ).run(
-          c.fileName,
-          c.sha256,
-          c.format,
-          total,
-          c.report.skippedRows,
-          now,
-          mappingJson,
-          reportJson,
-          c.description ?? null,
-          catalogId,
-        );
-      } else {
-        if (old) statements.deleteCatalog.run(old.catalog_id);
-        catalogId = Number(
-          statements.insertCatalog.run(
-            c.name,
-            c.description ?? old?.description ?? '',
-            c.fileName,
-            c.sha256,
-            c.format,
-            0,
-            c.report.skippedRows,
-            now,
-            mappingJson,
-            reportJson,
-          ).lastInsertRowid,
-        );
-        stored = db
-          .prepare(
-            `INSERT INTO galaxy (catalog_id, ${GALAXY_COLS}) SELECT ?, ${GALAXY_COLS} FROM ${c.stage} ORDER BY hpx, object_id`,
-          )
-          .run(catalogId).changes;
-        db.prepare('UPDATE catalog SET row_count = ? WHERE catalog_id = ?').run(stored, catalogId);
-      }
-      const total = (
-        db.prepare('SELECT row_count AS n FROM catalog WHERE catalog_id = ?').get(catalogId) as { n: number }
-      ).n;
-      const pairs = matchCatalog(store, catalogId);
-      rebuildPhysicalLinks(store);
-      return { stored, total, pairs };
-    })
-    .immediate();
 }

@@ -1,11 +1,13 @@
-import { ang2pixNest } from '../../sky/index.js';
+import { ang2pixNestUnchecked, nsideOf } from '../../sky/index.js';
 import type { CellValue, ColumnInfo, SourceRow } from '../readers/types.js';
 import { STORAGE_ORDER } from '../storage-order.js';
-import { cellNumber, cellText, show, whyNotFinite } from './cells.js';
+import { show, whyNotFinite } from './cells.js';
 import type { Field } from './fields.js';
 import type { ColumnMapping } from './mapping.js';
 import type { ProblemLog } from './problems.js';
+import { ArrayCells, type RowCells } from './row-cells.js';
 import { parseSexagesimalDecDeg, parseSexagesimalRaDeg } from './sexagesimal.js';
+import type { RowTarget } from './staged-batch.js';
 import {
   absoluteMagnitude,
   ESTIMATED_LOG_MSTAR_ERR_FLOOR,
@@ -111,14 +113,26 @@ export interface ConverterContext {
   };
 }
 
+const STORAGE_NSIDE = nsideOf(STORAGE_ORDER);
+
 /** Sentinel for "cell had a problem" (distinct from null = empty cell). */
 const BAD = Symbol('bad');
+
+/** Checks and converts one source row: null when the row has problems (they go to the log). */
+export interface RowConverter {
+  (row: SourceRow): StagedRow | null;
+  /**
+   * The same for a row given as cells (see row-cells.ts) and its line/row number: a good row goes
+   * to `target` (true), a bad one to the problem log (false).
+   */
+  cells(cells: RowCells, position: number, target: RowTarget): boolean;
+}
 
 /**
  * Build the function that checks and converts one source row (null when the row has problems). The
  * returned array is reused for the next row: copy it before converting another.
  */
-export function createRowConverter(ctx: ConverterContext): (row: SourceRow) => StagedRow | null {
+export function createRowConverter(ctx: ConverterContext): RowConverter {
   const { mapping, columns, positionKind, defaults, problems, counts } = ctx;
   const at = (f: Field) => mapping.index[f] ?? -1;
   const iId = at('id');
@@ -148,21 +162,21 @@ export function createRowConverter(ctx: ConverterContext): (row: SourceRow) => S
 
   let position = 0;
   let bad = false;
-  let values: CellValue[] = [];
+  let cells: RowCells = new ArrayCells();
   function problem(i: number, field: string, reason: string, value?: CellValue): void {
     bad = true;
     problems.add({
       position,
       positionKind,
       column: i >= 0 ? names[i] : field,
-      value: show(value ?? (i >= 0 ? values[i] : '')),
+      value: show(value ?? (i >= 0 ? cells.raw(i) : '')),
       reason,
     });
   }
   /** Number in column i: null if absent/empty, BAD (problem recorded) if unreadable or below min. */
   function num(i: number, min: number): number | null | typeof BAD {
     if (i < 0) return null;
-    const x = cellNumber(values[i]);
+    const x = cells.number(i);
     if (x === null) return null;
     if (!Number.isFinite(x)) {
       problem(i, '', whyNotFinite(x));
@@ -176,13 +190,13 @@ export function createRowConverter(ctx: ConverterContext): (row: SourceRow) => S
   }
   const ok = (x: number | null | typeof BAD): number | null => (x === BAD ? null : x);
   function angle(i: number, scale: number, isRa: boolean): number | null {
-    const raw = values[i];
-    const x = cellNumber(raw);
+    const x = cells.number(i);
     if (x === null) {
       problem(i, '', 'is empty');
       return null;
     }
-    if (Number.isNaN(x) && typeof raw === 'string') {
+    const raw = Number.isNaN(x) ? cells.raw(i) : null;
+    if (typeof raw === 'string') {
       const y = isRa ? parseSexagesimalRaDeg(raw) : parseSexagesimalDecDeg(raw);
       if (Number.isNaN(y)) {
         problem(
@@ -217,20 +231,19 @@ export function createRowConverter(ctx: ConverterContext): (row: SourceRow) => S
     return x;
   }
 
-  const out: StagedRow = [0, '', 0, 0, 0, null, 'spec', null, null, 0, null, null, null, null, null, null, 0];
-  return (row: SourceRow): StagedRow | null => {
-    values = row.values;
-    position = row.position;
+  const convertCells = (rowCells: RowCells, rowPosition: number, target: RowTarget): boolean => {
+    cells = rowCells;
+    position = rowPosition;
     bad = false;
-    if (values.length !== nColumns) {
+    if (cells.count !== nColumns) {
       problem(
         -1,
         '(row)',
-        `expected ${nColumns} fields as in the header, found ${values.length} (wrong delimiter, or an unquoted delimiter inside a field?)`,
+        `expected ${nColumns} fields as in the header, found ${cells.count} (wrong delimiter, or an unquoted delimiter inside a field?)`,
         '',
       );
       problems.badRows++;
-      return null;
+      return false;
     }
 
     let id: string | null;
@@ -238,7 +251,7 @@ export function createRowConverter(ctx: ConverterContext): (row: SourceRow) => S
       id = `${positionKind}${position}`;
       counts.idsGenerated++;
     } else {
-      id = cellText(values[iId]);
+      id = cells.text(iId);
       if (id === null) problem(iId, '', 'is empty; every row needs an identifier');
     }
 
@@ -277,7 +290,7 @@ export function createRowConverter(ctx: ConverterContext): (row: SourceRow) => S
       if (zz === null) problem(iZ, '', 'is empty');
       z = ok(zz);
       zErr = ok(num(iZe, 0));
-      const kindText = iKind < 0 ? null : cellText(values[iKind]);
+      const kindText = iKind < 0 ? null : cells.text(iKind);
       if (kindText !== null) {
         zKind = Z_KINDS.get(kindText) ?? Z_KINDS.get(kindText.toLowerCase().replace(/[^a-z]/g, '')) ?? null;
         if (zKind === null) problem(iKind, '', "must be 'spec' or 'photo'");
@@ -336,7 +349,7 @@ export function createRowConverter(ctx: ConverterContext): (row: SourceRow) => S
       );
       logMhaloErr = ok(num(iHe, 0));
       if (logMhalo !== null) {
-        const defText = iHd < 0 ? null : cellText(values[iHd]);
+        const defText = iHd < 0 ? null : cells.text(iHd);
         if (defText !== null) {
           mhaloDef =
             MHALO_DEFS.get(defText) ??
@@ -385,26 +398,57 @@ export function createRowConverter(ctx: ConverterContext): (row: SourceRow) => S
 
     if (bad || id === null || raDeg === null || decDeg === null || z === null || zKind === null) {
       problems.badRows++;
-      return null;
+      return false;
     }
-    // The same array is filled for every row: the caller copies it into a StagedBatch at once.
-    out[0] = ang2pixNest(STORAGE_ORDER, raDeg, decDeg);
-    out[1] = id;
-    out[2] = raDeg;
-    out[3] = decDeg;
-    out[4] = z;
-    out[5] = zErr;
-    out[6] = zKind;
-    out[7] = logMstar;
-    out[8] = logMstarErr;
-    out[9] = massEstimated;
-    out[10] = gMag;
-    out[11] = iMag;
-    out[12] = logMhalo;
-    out[13] = mhaloDef;
-    out[14] = logMhaloErr;
-    out[15] = iGrp < 0 ? null : cellText(values[iGrp]);
-    out[16] = position;
-    return out;
+    target.add(
+      ang2pixNestUnchecked(STORAGE_NSIDE, raDeg, decDeg),
+      id,
+      raDeg,
+      decDeg,
+      z,
+      zErr,
+      zKind,
+      logMstar,
+      logMstarErr,
+      massEstimated,
+      gMag,
+      iMag,
+      logMhalo,
+      mhaloDef,
+      logMhaloErr,
+      iGrp < 0 ? null : cells.text(iGrp),
+      position,
+    );
+    return true;
   };
+  // The array form fills one StagedRow, reused for every row: copy it before converting another.
+  const out = [
+    0,
+    '',
+    0,
+    0,
+    0,
+    null,
+    'spec',
+    null,
+    null,
+    0,
+    null,
+    null,
+    null,
+    null,
+    null,
+    null,
+    0,
+  ] as StagedRow;
+  const intoOut: RowTarget = {
+    add(...row) {
+      for (let k = 0; k < row.length; k++) (out as unknown[])[k] = row[k];
+    },
+  };
+  const arrayCells = new ArrayCells();
+  const converter = (row: SourceRow) =>
+    convertCells(arrayCells.reset(row.values), row.position, intoOut) ? out : null;
+  converter.cells = convertCells;
+  return converter;
 }

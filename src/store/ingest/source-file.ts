@@ -11,12 +11,18 @@ export interface SourceFile {
   readonly path: string;
   /** File name recorded in the catalogue table (the original name, not a spool path). */
   readonly fileName: string;
-  readonly sha256: string;
+  /**
+   * SHA-256 of the file (hex). Known at once for a spooled stream (hashed while spooled); for a
+   * path it is computed on the first call (a load normally gets it from its parsing worker instead).
+   */
+  sha256(): Promise<string>;
+  /** Whether sha256() is already known (no file read needed). */
+  readonly sha256Known: boolean;
   readonly bytes: number;
   dispose(): void;
 }
 
-async function sha256OfFile(path: string): Promise<string> {
+export async function sha256OfFile(path: string): Promise<string> {
   const hash = createHash('sha256');
   await pipeline(createReadStream(path, { highWaterMark: 1 << 20 }), hash);
   return hash.digest('hex');
@@ -36,10 +42,15 @@ export async function resolveSource(source: string | Readable, fileName?: string
     } catch (err) {
       throw new InputError('bad_file', `cannot read ${source}: ${(err as Error).message}`, { file: source });
     }
+    let hashing: Promise<string> | undefined;
     return {
       path: source,
       fileName: fileName ?? basename(source),
-      sha256: await sha256OfFile(source),
+      sha256: () => {
+        hashing ??= sha256OfFile(source);
+        return hashing;
+      },
+      sha256Known: false,
       bytes,
       dispose: () => {},
     };
@@ -61,10 +72,12 @@ export async function resolveSource(source: string | Readable, fileName?: string
     rmSync(dir, { recursive: true, force: true });
     throw err;
   }
+  const digest = hash.digest('hex');
   return {
     path,
     fileName: fileName ?? 'upload',
-    sha256: hash.digest('hex'),
+    sha256: () => Promise.resolve(digest),
+    sha256Known: true,
     bytes,
     dispose: () => rmSync(dir, { recursive: true, force: true }),
   };

@@ -1,7 +1,7 @@
 import { createReadStream } from 'node:fs';
 import type { Readable } from 'node:stream';
 import { StringDecoder } from 'node:string_decoder';
-import { type DelimitedRecord, delimitedRecords } from './delimited-records.js';
+import { type DelimitedRecord, delimitedRecords, recordFields } from './delimited-records.js';
 import {
   type CellValue,
   type ColumnInfo,
@@ -41,7 +41,7 @@ const OTHER_DELIMITERS: Record<string, string> = {
 };
 
 function checkHeader(record: DelimitedRecord, delimiter: string): string[] {
-  const names = record.fields.map((f) => f.trim());
+  const names = recordFields(record, delimiter).map((f) => f.trim());
   if (names.length === 1) {
     for (const [d, word] of Object.entries(OTHER_DELIMITERS)) {
       if (d !== delimiter && names[0].includes(d)) {
@@ -91,11 +91,11 @@ export async function openDelimited(
   }
   const stream =
     typeof source === 'string' ? createReadStream(source, { highWaterMark: READ_CHUNK_BYTES }) : source;
-  const records = delimitedRecords(utf8Chunks(stream), delimiter);
+  const lineRecords = delimitedRecords(utf8Chunks(stream), delimiter);
   let first: DelimitedRecord[] = [];
   try {
     while (first.length === 0) {
-      const next = await records.next();
+      const next = await lineRecords.next();
       if (next.done)
         throw new FileFormatError('the file is empty (no header line, only blank or # comment lines)');
       first = next.value;
@@ -121,7 +121,7 @@ export async function openDelimited(
     try {
       const take = function* (recs: DelimitedRecord[]): Generator<SourceRow[]> {
         for (const rec of recs) {
-          const values: CellValue[] = rec.fields;
+          const values: CellValue[] = recordFields(rec, delimiter);
           for (let i = 0; i < values.length; i++) if (values[i] === '') values[i] = null;
           batch.push({ position: rec.line, values });
           if (batch.length >= batchSize) {
@@ -131,8 +131,20 @@ export async function openDelimited(
         }
       };
       yield* take(first.slice(1));
-      for await (const recs of records) yield* take(recs);
+      for await (const recs of lineRecords) yield* take(recs);
       if (batch.length > 0) yield batch;
+    } finally {
+      stream.destroy();
+    }
+  }
+
+  /** The data records as the splitter gives them (for readers that decode lines in place). */
+  async function* records(): AsyncGenerator<DelimitedRecord[]> {
+    if (used) throw new Error('a SourceTable can be iterated only once');
+    used = true;
+    try {
+      if (first.length > 1) yield first.slice(1);
+      for await (const recs of lineRecords) yield recs;
     } finally {
       stream.destroy();
     }
@@ -142,6 +154,7 @@ export async function openDelimited(
     format: delimiter === '\t' ? 'tsv' : 'csv',
     columns,
     positionKind: 'line',
+    delimited: { delimiter, records },
     batches,
     close: async () => {
       stream.destroy();

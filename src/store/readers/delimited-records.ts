@@ -1,10 +1,18 @@
 import { parse } from 'csv-parse/sync';
 import { FileFormatError } from './types.js';
 
-/** One logical record of a delimited text file and the line it starts on (1-based). */
-export interface DelimitedRecord {
-  readonly line: number;
-  readonly fields: string[];
+/**
+ * One logical record of a delimited text file and the line it starts on (1-based): either a line
+ * without quotes, kept whole (`text`; split it on the delimiter, or read it in place), or a quoted
+ * record already split into its fields (`fields`).
+ */
+export type DelimitedRecord =
+  | { readonly line: number; readonly text: string; readonly fields?: undefined }
+  | { readonly line: number; readonly fields: string[]; readonly text?: undefined };
+
+/** The fields of a record. */
+export function recordFields(record: DelimitedRecord, delimiter: string): string[] {
+  return record.fields ?? record.text.split(delimiter);
 }
 
 function countQuotes(s: string): number {
@@ -15,9 +23,9 @@ function countQuotes(s: string): number {
 
 /**
  * Split a stream of text chunks into delimited records, yielded as one array per chunk (a
- * generator step per record would cost more than the parsing). Fast path: a line without a double quote is
- * split on the delimiter directly (several times faster than a general parser on plain numeric
- * catalogues). A line with quotes is joined with the following lines until its quotes balance and
+ * generator step per record would cost more than the parsing). Fast path: a line without a double
+ * quote is passed on whole, to be split on the delimiter directly (several times faster than a
+ * general parser on plain numeric catalogues). A line with quotes is joined with the following lines until its quotes balance and
  * handed to csv-parse, which handles RFC 4180 quoting ("" escapes, delimiters and newlines inside
  * quotes). Handles a UTF-8 BOM, CRLF line ends, blank lines and '#' comment lines.
  */
@@ -68,7 +76,7 @@ export async function* delimitedRecords(
     }
     if (line.length === 0 || line.charCodeAt(0) === 35 /* # */) return;
     if (line.indexOf('"') === -1) {
-      out.push({ line: lineNo, fields: line.split(delimiter) as string[] });
+      out.push({ line: lineNo, text: line });
       return;
     }
     const q = countQuotes(line);

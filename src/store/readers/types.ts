@@ -1,4 +1,5 @@
 import { InputError } from '../../errors.js';
+import type { DelimitedRecord } from './delimited-records.js';
 
 /**
  * The common shape of every catalogue file reader (CSV/TSV, FITS binary table, VOTable).
@@ -32,8 +33,13 @@ export interface SourceTable {
   readonly positionKind: 'line' | 'row';
   /** Total rows if the header says so (FITS NAXIS2), else undefined. */
   readonly rowCountHint?: number;
-  /** Rows in batches, in file order. Iterate once. */
+  /** Rows in batches, in file order. Iterate once (this or delimited.records). */
   batches(batchSize?: number): AsyncIterable<SourceRow[]>;
+  /** CSV/TSV only: the records undecoded (unquoted lines kept whole), for reading lines in place. */
+  readonly delimited?: {
+    readonly delimiter: string;
+    records(): AsyncIterable<DelimitedRecord[]>;
+  };
   /** Release file handles early (also done when iteration finishes). */
   close(): Promise<void>;
 }

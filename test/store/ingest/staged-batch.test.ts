@@ -1,13 +1,13 @@
 import { describe, expect, it } from 'vitest';
+import { createPartWriter } from '../../../src/store/ingest/part-writer.js';
 import type { StagedRow } from '../../../src/store/ingest/row-converter.js';
-import { createStage } from '../../../src/store/ingest/stage.js';
 import { createBatchBuilder } from '../../../src/store/ingest/staged-batch.js';
 import { useTmp } from '../tmp.js';
 
 describe('staged batches', () => {
   const tmp = useTmp();
 
-  it('carry every value of a row, including NULLs, codes and ids, into the staging table unchanged', () => {
+  it('carry every value of a row, including NULLs, codes and ids, into the galaxy table unchanged', () => {
     const rows: StagedRow[] = [
       [
         123456789,
@@ -37,11 +37,20 @@ describe('staged batches', () => {
     expect(batch.length).toBe(3);
     expect(builder.length).toBe(0);
     const store = tmp.store();
-    const stage = createStage(store.db);
-    stage.insertMany(batch);
-    const back = store.db.prepare(`SELECT * FROM ${stage.table} ORDER BY rowid`).raw(true).all();
+    const catalogId = Number(
+      store.statements.insertCatalog.run('t', '', 't.csv', '0'.repeat(64), 'csv', 3, 0, 'now', '{}', '{}')
+        .lastInsertRowid,
+    );
+    createPartWriter(store.db).write(catalogId, 4, batch);
+    const back = store.db
+      .prepare(
+        `SELECT hpx, object_id, ra_deg, dec_deg, z, z_err, z_kind, log_mstar, log_mstar_err, mass_estimated,
+           g_mag, i_mag, log_mhalo, mhalo_def, log_mhalo_err, group_id, source_position
+         FROM galaxy WHERE catalog_id = ? AND run = 4 ORDER BY source_position`,
+      )
+      .raw(true)
+      .all(catalogId);
     expect(back).toEqual(rows.map((r) => [...r]));
-    stage.drop();
   });
 
   it('refuse a row beyond their capacity', () => {

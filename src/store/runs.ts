@@ -1,0 +1,68 @@
+import type Database from 'better-sqlite3';
+
+/**
+ * Galaxy keys (migrations/0004_galaxy_runs.sql): gkey = run · 2^48 + hpx · 2^18 + seq. A run is one
+ * sorted part of one load; galaxy_run says which catalogue owns it. This module holds the key
+ * layout and the few statements that follow from it; every other module asks here.
+ */
+export const RUN_SHIFT = 48;
+export const SEQ_BITS = 18;
+/** Rows of one run: seq must stay below 2^18. */
+export const MAX_RUN_ROWS = 2 ** SEQ_BITS;
+/** Run numbers in use at once (the CHECK of galaxy_run). */
+export const MAX_RUNS = 2 ** 15;
+
+/** SQL condition: the row g lies in the run given by the SQL expression `run`. */
+export function inRun(run: string, g = 'g'): string {
+  return `${g}.gkey BETWEEN (${run}) << ${RUN_SHIFT} AND (((${run}) + 1) << ${RUN_SHIFT}) - 1`;
+}
+
+/**
+ * SQL condition: the row g lies in run `run` with lo ≤ hpx ≤ hi (SQL expressions): one contiguous
+ * key range, so one seek and a forward scan.
+ */
+export function inRunPixels(run: string, lo: string, hi: string, g = 'g'): string {
+  return `${g}.gkey BETWEEN ((${run}) << ${RUN_SHIFT}) | ((${lo}) << ${SEQ_BITS})
+    AND ((${run}) << ${RUN_SHIFT}) + (((${hi}) + 1) << ${SEQ_BITS}) - 1`;
+}
+
+/** SQL: the rows g of one catalogue (bound as `param`), as a FROM fragment and a WHERE condition. */
+export function catalogRows(param: string, g = 'g'): { from: string; where: string } {
+  return {
+    from: `galaxy_run k CROSS JOIN galaxy ${g}`,
+    where: `k.catalog_id = ${param} AND ${inRun('k.run', g)}`,
+  };
+}
+
+/** A free run number for a new part of catalogue `catalogId` (recorded at once). */
+export function allocateRun(db: Database.Database, catalogId: number): number {
+  const run = db
+    .prepare<[], number>(
+      `SELECT CASE WHEN NOT EXISTS (SELECT 1 FROM galaxy_run WHERE run = 0) THEN 0 ELSE (
+         SELECT r.run + 1 FROM galaxy_run r
+         WHERE NOT EXISTS (SELECT 1 FROM galaxy_run s WHERE s.run = r.run + 1)
+         ORDER BY r.run LIMIT 1) END`,
+    )
+    .pluck()
+    .get()!;
+  if (run >= MAX_RUNS) {
+    throw new Error(
+      `the database holds ${MAX_RUNS} runs of galaxies, its limit; drop or reload catalogues to free some`,
+    );
+  }
+  db.prepare('INSERT INTO galaxy_run (run, catalog_id) VALUES (?, ?)').run(run, catalogId);
+  return run;
+}
+
+/** Delete every galaxy row of a catalogue and free its runs (inside the caller's transaction). */
+export function deleteCatalogGalaxies(db: Database.Database, catalogId: number): number {
+  const runs = db
+    .prepare<[number], number>('SELECT run FROM galaxy_run WHERE catalog_id = ?')
+    .pluck()
+    .all(catalogId);
+  const del = db.prepare<[{ run: number }]>(`DELETE FROM galaxy WHERE ${inRun('@run', 'galaxy')}`);
+  let n = 0;
+  for (const run of runs) n += del.run({ run }).changes;
+  db.prepare('DELETE FROM galaxy_run WHERE catalog_id = ?').run(catalogId);
+  return n;
+}
