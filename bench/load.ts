@@ -7,6 +7,8 @@
  *   --built        load with the compiled code in dist/ (run `npm run build` first): what the packaged
  *                  `forehalo` binary runs; by default the TypeScript sources run under tsx
  *   --in-thread    parse in the loading thread instead of a worker thread
+ *   --part-rows R  rows per sorted part (default: the loader's own)
+ *   --merge-above K  merge a load's parts into one run when there are more than K (default: the loader's)
  * Targets: ≥ 300,000 rows/s end to end and ≥ 0.5 of the bare better-sqlite3 insert loop.
  */
 import { createWriteStream, existsSync, mkdtempSync, rmSync } from 'node:fs';
@@ -23,6 +25,10 @@ const inThread = args.includes('--in-thread');
 const runsArg = args.indexOf('--runs');
 const runs = runsArg >= 0 ? Math.max(1, Number(args[runsArg + 1])) : 3;
 const built = args.includes('--built');
+const partArg = args.indexOf('--part-rows');
+const partRows = partArg >= 0 ? Number(args[partArg + 1]) : undefined;
+const mergeArg = args.indexOf('--merge-above');
+const mergeAboveRuns = mergeArg >= 0 ? Number(args[mergeArg + 1]) : undefined;
 const distStore = new URL('../dist/src/store/index.js', import.meta.url);
 if (built && !existsSync(distStore)) {
   console.error('--built needs the compiled code: run `npm run build` first');
@@ -85,6 +91,8 @@ async function endToEnd(k: number): Promise<{ rows: number; seconds: number; wri
     source: csv,
     name: 'synthetic',
     parseInWorker: !inThread,
+    batchSize: partRows,
+    mergeAboveRuns,
     onProgress: () => {
       lastProgress = performance.now();
     },

@@ -104,7 +104,7 @@ function finish(
 
 /**
  * Galaxies within radiusDeg of (raDeg, decDeg), nearest first: the cone becomes a few HEALPix
- * index ranges at the storage order (coneCoverRanges), each a contiguous scan of the clustered galaxy
+ * index ranges at the storage order (coneCoverRanges), each a contiguous key-range scan (per run) of the galaxy
  * table in which SQLite drops rows outside the redshift window, the Dec band of the cone and the
  * mass hint; an exact great-circle separation test follows. One row per physical galaxy has
  * preferred = true.

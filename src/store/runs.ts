@@ -1,14 +1,19 @@
 import type Database from 'better-sqlite3';
 
 /**
- * Galaxy keys (migrations/0004_galaxy_runs.sql): gkey = run · 2^48 + hpx · 2^18 + seq. A run is one
- * sorted part of one load; galaxy_run says which catalogue owns it. This module holds the key
- * layout and the few statements that follow from it; every other module asks here.
+ * Galaxy keys (migrations/0004_galaxy_runs.sql): gkey = run · 2^48 + hpx · 2^18 + seq, where seq
+ * numbers the rows of one HEALPix pixel within the run (0 for almost every row). A run is one sorted
+ * part of a load, or the merge of a large load's parts; galaxy_run says which catalogue owns it.
+ * This module holds the key layout and the statements that follow from it; every other module asks
+ * here.
  */
 export const RUN_SHIFT = 48;
 export const SEQ_BITS = 18;
-/** Rows of one run: seq must stay below 2^18. */
-export const MAX_RUN_ROWS = 2 ** SEQ_BITS;
+/** Rows of one run in one storage pixel (seq < 2^18, i.e. 262,144 rows at one 26″ spot). */
+export const MAX_PIXEL_ROWS = 2 ** SEQ_BITS;
+/** The stored columns of galaxy besides gkey (hpx and run are computed from gkey). */
+export const GALAXY_STORED_COLUMNS =
+  'catalog_id, object_id, ra_deg, dec_deg, z, z_err, z_kind, log_mstar, log_mstar_err, mass_estimated, g_mag, i_mag, log_mhalo, mhalo_def, log_mhalo_err, group_id, source_position';
 /** Run numbers in use at once (the CHECK of galaxy_run). */
 export const MAX_RUNS = 2 ** 15;
 
@@ -65,4 +70,35 @@ export function deleteCatalogGalaxies(db: Database.Database, catalogId: number):
   for (const run of runs) n += del.run({ run }).changes;
   db.prepare('DELETE FROM galaxy_run WHERE catalog_id = ?').run(catalogId);
   return n;
+}
+
+/**
+ * Merge runs of one catalogue into one new run, inside the caller's transaction: the rows are copied
+ * in HEALPix order (SQLite's sorter, which spills to temporary files, so memory stays flat) with
+ * fresh keys, then the old runs are deleted. Used when a load wrote many parts, so that a cone
+ * search of the catalogue is again a handful of range scans. Returns the new run.
+ */
+export function mergeRuns(db: Database.Database, catalogId: number, runs: readonly number[]): number {
+  const run = allocateRun(db, catalogId);
+  const cols = GALAXY_STORED_COLUMNS.split(', ')
+    .map((c) => `g.${c}`)
+    .join(', ');
+  // seq: the row's rank within its pixel; capped so that an absurd pile-up (> 2^18 rows at one
+  // spot) fails on the primary key instead of spilling into the pixel bits.
+  db.prepare(
+    `INSERT INTO galaxy (gkey, ${GALAXY_STORED_COLUMNS})
+     SELECT (@run << ${RUN_SHIFT}) | (g.hpx << ${SEQ_BITS})
+              | min(row_number() OVER (PARTITION BY g.hpx ORDER BY g.gkey) - 1, ${MAX_PIXEL_ROWS - 1}),
+            ${cols}
+     FROM (SELECT value AS run FROM json_each(@runs)) k CROSS JOIN galaxy g
+     WHERE ${inRun('k.run')}
+     ORDER BY g.hpx, g.gkey`,
+  ).run({ run, runs: JSON.stringify(runs) });
+  const del = db.prepare<[{ run: number }]>(`DELETE FROM galaxy WHERE ${inRun('@run', 'galaxy')}`);
+  const free = db.prepare<[{ run: number }]>('DELETE FROM galaxy_run WHERE run = @run');
+  for (const old of runs) {
+    del.run({ run: old });
+    free.run({ run: old });
+  }
+  return run;
 }

@@ -4,7 +4,7 @@ import type Database from 'better-sqlite3';
 import { ConflictError, InputError } from '../../errors.js';
 import { matchCatalog, rebuildPhysicalLinks } from '../duplicates.js';
 import type { Store } from '../open.js';
-import { allocateRun, deleteCatalogGalaxies, inRun, inRunPixels } from '../runs.js';
+import { allocateRun, deleteCatalogGalaxies, inRun, inRunPixels, mergeRuns } from '../runs.js';
 import { STORAGE_ORDER } from '../storage-order.js';
 import {
   type ConvertEnd,
@@ -46,7 +46,7 @@ export interface LoadOptions {
   /** Called after each batch with the number of source rows read so far. */
   onProgress?: (rowsRead: number) => void;
   /**
-   * Source rows per part (default: 32k–256k rows by file size, see rowsPerPart). Each part is sorted
+   * Source rows per part (default PART_ROWS; tests use small parts). Each part is sorted
    * into storage order and appended as a unit; cone searches scan once per part.
    */
   batchSize?: number;
@@ -55,6 +55,8 @@ export interface LoadOptions {
    * thread where a worker cannot start, e.g. under a test runner that cannot load .ts in workers).
    */
   parseInWorker?: boolean;
+  /** Merge the load's parts into one run when there are more than this many (default MERGE_ABOVE_RUNS). */
+  mergeAboveRuns?: number;
 }
 
 export interface LoadReport {
@@ -125,7 +127,7 @@ const WRITE_LOCK_WAIT_MS = 300_000;
  * Load a catalogue file into the store as one atomic step. Rows stream through the reader in a
  * worker thread, are checked and converted (positions to degrees, masses to log10 M☉, σ/(1+z) to
  * σ, colour-based masses where needed), and are sorted part by part into storage order; this
- * thread appends each part to the clustered galaxy table inside ONE write transaction that also
+ * thread appends each part to the galaxy table as one run (runs.ts) inside ONE write transaction that also
  * holds the catalogue row, the duplicate-id check and the cross-catalogue links. Until its commit
  * nothing of the load is visible to other connections; an error rolls it back, and a crash (even
  * SIGKILL) leaves the previous state, since SQLite ignores uncommitted WAL frames on recovery.
@@ -155,17 +157,19 @@ export async function loadCatalog(store: Store, options: LoadOptions): Promise<L
 }
 
 /**
- * Rows per part from the expected row count: 32k rows up to about a million rows, growing to 256k
- * for ten million, so a catalogue has at most ~40 parts (a cone search seeks once per part and
- * range). Small parts keep the parsing thread fast: a part's ids stay alive in the V8 young
- * generation until it is handed over, and scavenges copy them (bench/load.ts: 131k-row parts parsed
- * ~25 % slower than 32k-row parts).
+ * Rows per part (one run each). Parts are small so the parsing worker and its hand-over stay small in
+ * memory (bench/load.ts: 256k-row parts raised peak RSS at 5M rows to 374 MB; 64k-row parts loaded
+ * 1M rows ~10 % slower than 32k-row parts) and the last part's write, which nothing overlaps, is short; a load of more than MERGE_ABOVE_RUNS parts is merged into
+ * one run before it commits (mergeRuns), so a cone search never seeks in more than that many runs
+ * of one catalogue.
  */
-function rowsPerPart(expectedRows: number): number {
-  let rows = 2 ** 15;
-  while (rows < expectedRows / 32 && rows < 2 ** 18) rows *= 2;
-  return rows;
-}
+const PART_ROWS = 32_768;
+/**
+ * Loads with more parts than this are merged into one run (above about 1.3 million rows). A 1M-row
+ * load keeps its 31 runs: merging them would cost it more time than the load itself took (bench/
+ * load.ts), while the extra seeks cost a cone search little (README, performance).
+ */
+const MERGE_ABOVE_RUNS = 40;
 
 function beginImmediate(db: Database.Database): void {
   const wait = db.pragma('busy_timeout', { simple: true }) as number;
@@ -195,7 +199,7 @@ async function loadLocked(
     delimiter: options.delimiter,
     explicitMap,
     defaults,
-    batchSize: Math.min(options.batchSize ?? rowsPerPart(expectedRows), MAX_PART_ROWS),
+    batchSize: Math.min(options.batchSize ?? PART_ROWS, MAX_PART_ROWS),
     skipInvalid: options.skipInvalid ?? false,
     expectedRows,
     hashFile: !src.sha256Known,
@@ -333,6 +337,10 @@ async function loadLocked(
 
     // Ids must be unique within the file (and so within the catalogue, since an append replaces
     // rows by id): the parsing side named the candidates, settled here against the stored rows.
+    // Many parts: one merged run, so cone searches of this catalogue stay a few range scans.
+    if (target.runs.length > (options.mergeAboveRuns ?? MERGE_ABOVE_RUNS)) {
+      target.runs = [mergeRuns(db, catalogId, target.runs)];
+    }
     const runs = JSON.stringify(target.runs);
     const repeats = repeatedIds(db, runs, end);
     const duplicateIds = repeats.slice(0, 100).map((d) => ({ objectId: d.objectId, positions: d.positions }));

@@ -1,4 +1,3 @@
-import { MAX_RUN_ROWS } from '../runs.js';
 import { CODE_COLUMNS, idAt, NUMBER_COLUMNS, numberAt, type StagedBatch } from './staged-batch.js';
 
 /** A row left out of a part because an earlier row of the part has the same HEALPix index and id. */
@@ -8,8 +7,8 @@ export interface RemovedTwin {
   position: number;
 }
 
-/** Largest part: one run of the galaxy table (runs.ts). */
-export const MAX_PART_ROWS = MAX_RUN_ROWS;
+/** Largest part (row indices of a part are kept in 32-bit arrays; parts are far smaller in use). */
+export const MAX_PART_ROWS = 2 ** 22;
 
 /**
  * Put one part of a load in storage order: by HEALPix index, then object id, then source position.

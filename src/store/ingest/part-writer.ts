@@ -1,5 +1,10 @@
 import type Database from 'better-sqlite3';
-import { MAX_RUN_ROWS, RUN_SHIFT } from '../runs.js';
+import { InputError } from '../../errors.js';
+import { MAX_PIXEL_ROWS, RUN_SHIFT } from '../runs.js';
+
+/** Storage pixel size at order 13, for messages [arcsec] (≈ 25.8″). */
+const STORAGE_ORDER_ARCSEC = 26;
+
 import {
   codeAt,
   groupIdAt,
@@ -67,6 +72,22 @@ function sharedLiterals(b: StagedBatch): (string | undefined)[] {
   });
 }
 
+/** For rows sorted by hpx (column 0 of `n`), each row's rank among the rows of its pixel. */
+function pixelRanks(n: Float64Array, count: number): Uint32Array {
+  const seq = new Uint32Array(count);
+  for (let i = 1; i < count; i++) {
+    if (n[i] !== n[i - 1]) continue;
+    seq[i] = seq[i - 1] + 1;
+    if (seq[i] >= MAX_PIXEL_ROWS) {
+      throw new InputError(
+        'too_many_at_one_position',
+        `more than ${MAX_PIXEL_ROWS - 1} rows fall in one ${STORAGE_ORDER_ARCSEC}″ HEALPix pixel (${n[i]}); are positions missing or defaulted?`,
+      );
+    }
+  }
+  return seq;
+}
+
 /**
  * Appends sorted parts (see part-sort.ts) of one catalogue to the galaxy table inside the caller's
  * open transaction. A column with one value in every row of a part (often NULL) is written as a
@@ -94,8 +115,6 @@ export function createPartWriter(db: Database.Database) {
     write(catalogId: number, run: number, b: StagedBatch): number {
       const count = b.length;
       if (count === 0) return 0;
-      if (count > MAX_RUN_ROWS)
-        throw new Error(`internal: a run holds at most ${MAX_RUN_ROWS} rows, got ${count}`);
       const shared = sharedLiterals(b);
       const used = COLUMNS.filter((_, c) => shared[c] === undefined);
       const named = { catalogId, run };
@@ -103,6 +122,7 @@ export function createPartWriter(db: Database.Database) {
       const values: unknown[] = new Array(ROWS_PER_STATEMENT * used.length);
       const { numbers: n, codes, stride } = b;
       const width = used.length;
+      const seq = pixelRanks(n, count);
       for (let start = 0; start < count; start += ROWS_PER_STATEMENT) {
         const rows = Math.min(ROWS_PER_STATEMENT, count - start);
         if (rows < ROWS_PER_STATEMENT) values.length = rows * width;
@@ -112,8 +132,9 @@ export function createPartWriter(db: Database.Database) {
           let v = j;
           // A NaN binds as SQL NULL (see StagedBatch).
           if (kind === 'key')
-            // hpx · 2^18 + seq, seq = the row's place in the sorted part: keys grow row by row.
-            for (let r = 0; r < rows; r++, v += width) values[v] = n[start + r] * MAX_RUN_ROWS + start + r;
+            // hpx · 2^18 + seq, seq = the row's rank within its pixel: keys grow row by row.
+            for (let r = 0; r < rows; r++, v += width)
+              values[v] = n[start + r] * MAX_PIXEL_ROWS + seq[start + r];
           else if (kind === 'n')
             for (let r = 0; r < rows; r++, v += width) values[v] = n[k * stride + start + r];
           else if (kind === 'id') for (let r = 0; r < rows; r++, v += width) values[v] = idAt(b, start + r);

@@ -42,7 +42,7 @@ export const LIMITS = Object.freeze({
 });
 
 /**
- * The parameter list of one staged row, in the column order of the staging table:
+ * The values of one checked row, in the order of the galaxy columns (RowTarget.add takes the same):
  * hpx, object_id, ra_deg, dec_deg, z, z_err, z_kind, log_mstar, log_mstar_err, mass_estimated,
  * g_mag, i_mag, log_mhalo, mhalo_def, log_mhalo_err, group_id, source_position.
  */

@@ -64,7 +64,12 @@ describe('a catalogue stored in several parts', () => {
 
   it('keeps keys exact past 2^53 (run numbers ≥ 32) and frees run numbers with their catalogue', async () => {
     const store = tmp.store();
-    await loadCatalog(store, { source: tmp.file('f.csv', fieldCsv(400)), name: 'many', batchSize: 10 });
+    await loadCatalog(store, {
+      source: tmp.file('f.csv', fieldCsv(400)),
+      name: 'many',
+      batchSize: 10,
+      mergeAboveRuns: 100,
+    });
     expect(partCount(store, 'many')).toBe(40);
     // hpx is read back from the key (a virtual column): it must equal the pixel of the stored position.
     const rows = store.db.prepare('SELECT run, hpx, ra_deg, dec_deg FROM galaxy WHERE run >= 32').all() as {
@@ -90,6 +95,45 @@ describe('a catalogue stored in several parts', () => {
     expect(store.db.prepare('SELECT COUNT(*) FROM galaxy').pluck().get()).toBe(0);
     await loadCatalog(store, { source: tmp.file('g.csv', fieldCsv(30)), name: 'again', batchSize: 10 });
     expect(store.db.prepare('SELECT run FROM galaxy_run ORDER BY run').pluck().all()).toEqual([0, 1, 2]);
+  });
+
+  it('merges a load of many parts into one run, keeping every row and rows that share a position', async () => {
+    const store = tmp.store();
+    // Lines 2–401: an invented field; then 30 more objects at one and the same position.
+    const extra = Array.from({ length: 30 }, (_, i) => `S${i},150.000000,2.000000,0.3,0.03,photo,10.0,0.15`);
+    const csv = `${fieldCsv(400).trimEnd()}\n${extra.join('\n')}\n`;
+    const s = await loadCatalog(store, {
+      source: tmp.file('m.csv', csv),
+      name: 'merged',
+      batchSize: 10,
+      mergeAboveRuns: 3,
+    });
+    expect(s.rows).toBe(430);
+    expect(partCount(store, 'merged')).toBe(1);
+    const rows = store.db.prepare('SELECT hpx, ra_deg, dec_deg FROM galaxy').all() as {
+      hpx: number;
+      ra_deg: number;
+      dec_deg: number;
+    }[];
+    expect(rows).toHaveLength(430);
+    for (const r of rows) expect(r.hpx).toBe(ang2pixNest(STORAGE_ORDER, r.ra_deg, r.dec_deg));
+    for (const [ra, dec, radius] of [
+      [150, 2, 0.01],
+      [150.1, 1.9, 0.12],
+      [150, 2, 2],
+    ]) {
+      const q = { raDeg: ra, decDeg: dec, radiusDeg: radius };
+      expect(coneSearch(store, q).map((x) => x.objectId)).toEqual(
+        coneSearchBruteForce(store, q).map((x) => x.objectId),
+      );
+    }
+    expect(
+      coneSearch(store, { raDeg: 150, decDeg: 2, radiusDeg: 0.001 }).filter((r) =>
+        r.objectId.startsWith('S'),
+      ),
+    ).toHaveLength(30);
+    // Runs freed by the merge are reused.
+    expect(store.db.prepare('SELECT MAX(run) FROM galaxy_run').pluck().get()).toBeLessThan(60);
   });
 
   it('finds an id repeated in another part, or twice in one pixel of one part, and names every line', async () => {
