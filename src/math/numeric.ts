@@ -2,12 +2,12 @@
 
 /** acos clamped to [-1, 1] so round-off never yields NaN. */
 export function clampedAcos(x: number): number {
-  return Math.acos(x > 1 ? 1 : x < -1 ? -1 : x);
+  return Math.acos(Math.min(1, Math.max(-1, x)));
 }
 
 /** asin clamped to [-1, 1] so round-off never yields NaN. */
 export function clampedAsin(x: number): number {
-  return Math.asin(x > 1 ? 1 : x < -1 ? -1 : x);
+  return Math.asin(Math.min(1, Math.max(-1, x)));
 }
 
 /** Neumaier (improved Kahan) compensated sum. */

@@ -1,10 +1,8 @@
 import type Database from 'better-sqlite3';
 import { InputError } from '../../errors.js';
+import { pixelSizeRad } from '../../sky/index.js';
 import { MAX_PIXEL_ROWS, RUN_SHIFT } from '../runs.js';
-
-/** Storage pixel size at order 13, for messages [arcsec] (≈ 25.8″). */
-const STORAGE_ORDER_ARCSEC = 26;
-
+import { STORAGE_ORDER } from '../storage-order.js';
 import {
   codeAt,
   groupIdAt,
@@ -72,6 +70,9 @@ function sharedLiterals(b: StagedBatch): (string | undefined)[] {
   });
 }
 
+/** Storage pixel size, for messages [arcsec] (≈ 25.8″ at order 13). */
+const STORAGE_PIXEL_ARCSEC = ((pixelSizeRad(STORAGE_ORDER) * 180) / Math.PI) * 3600;
+
 /** For rows sorted by hpx (column 0 of `n`), each row's rank among the rows of its pixel. */
 function pixelRanks(n: Float64Array, count: number): Uint32Array {
   const seq = new Uint32Array(count);
@@ -81,7 +82,7 @@ function pixelRanks(n: Float64Array, count: number): Uint32Array {
     if (seq[i] >= MAX_PIXEL_ROWS) {
       throw new InputError(
         'too_many_at_one_position',
-        `more than ${MAX_PIXEL_ROWS - 1} rows fall in one ${STORAGE_ORDER_ARCSEC}″ HEALPix pixel (${n[i]}); are positions missing or defaulted?`,
+        `more than ${MAX_PIXEL_ROWS - 1} rows fall in one ${STORAGE_PIXEL_ARCSEC.toFixed(1)}″ HEALPix pixel (nested index ${n[i]} at order ${STORAGE_ORDER}); are positions missing or set to a default?`,
       );
     }
   }

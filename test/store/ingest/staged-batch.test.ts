@@ -77,4 +77,34 @@ describe('staged batches', () => {
     builder.push(row);
     expect(() => builder.push(row)).toThrow(/full/);
   });
+
+  it('refuses a part with more than 2^18 − 1 rows in one storage pixel, naming it, before writing anything', () => {
+    const n = 2 ** 18 + 1;
+    const builder = createBatchBuilder(n);
+    for (let i = 0; i < n; i++)
+      builder.add(
+        4242,
+        `P${i}`,
+        1,
+        1,
+        0.1,
+        0.01,
+        'photo',
+        10,
+        0.1,
+        0,
+        null,
+        null,
+        null,
+        null,
+        null,
+        null,
+        i + 2,
+      );
+    const store = tmp.store();
+    expect(() => createPartWriter(store.db).write(1, 0, builder.take())).toThrow(
+      /more than 262143 rows fall in one 25\.8″ HEALPix pixel \(nested index 4242 at order 13\)/,
+    );
+    expect(store.db.prepare('SELECT COUNT(*) FROM galaxy').pluck().get()).toBe(0);
+  });
 });
