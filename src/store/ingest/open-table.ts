@@ -1,10 +1,8 @@
 import { closeSync, openSync, readSync } from 'node:fs';
 import { InputError } from '../../errors.js';
 import { openDelimited } from '../readers/csv.js';
-import { openFits } from '../readers/fits.js';
 import { sniffFormat } from '../readers/sniff.js';
 import type { SourceTable } from '../readers/types.js';
-import { openVotable } from '../readers/votable.js';
 
 export type SourceFormat = 'csv' | 'tsv' | 'fits' | 'votable';
 
@@ -60,7 +58,9 @@ export async function openTable(
   }
   // Text named .csv but tab-separated is read as TSV unless the caller declared the format.
   const format = declared ?? (isText(sniffed) ? sniffed : (claimed ?? sniffed));
-  if (format === 'fits') return openFits(path);
-  if (format === 'votable') return openVotable(path);
+  // The FITS and VOTable readers (and the XML parser) are loaded only when needed: every module
+  // loaded here delays the parsing worker's first rows.
+  if (format === 'fits') return (await import('../readers/fits.js')).openFits(path);
+  if (format === 'votable') return (await import('../readers/votable.js')).openVotable(path);
   return openDelimited(path, { format, delimiter });
 }

@@ -1,6 +1,6 @@
 import type Database from 'better-sqlite3';
 import { InputError } from '../../errors.js';
-import { pixelSizeRad } from '../../sky/index.js';
+import { pixelSizeRad } from '../../sky/healpix-order.js';
 import { MAX_PIXEL_ROWS, RUN_SHIFT } from '../runs.js';
 import { STORAGE_ORDER } from '../storage-order.js';
 import {

@@ -1,4 +1,5 @@
-import { ang2pixNestUnchecked, nsideOf } from '../../sky/index.js';
+import { nsideOf } from '../../sky/healpix-order.js';
+import { ang2pixNestUnchecked } from '../../sky/healpix-pixel.js';
 import type { CellValue, ColumnInfo, SourceRow } from '../readers/types.js';
 import { STORAGE_ORDER } from '../storage-order.js';
 import { show, whyNotFinite } from './cells.js';
