@@ -136,6 +136,34 @@ describe('a catalogue stored in several parts', () => {
     expect(store.db.prepare('SELECT MAX(run) FROM galaxy_run').pluck().get()).toBeLessThan(60);
   });
 
+  it('merges a many-run catalogue before matching a large enough new catalogue against it', async () => {
+    const store = tmp.store();
+    await loadCatalog(store, {
+      source: tmp.file('a.csv', fieldCsv(400)),
+      name: 'wide',
+      batchSize: 10,
+      mergeAboveRuns: 100,
+    });
+    expect(partCount(store, 'wide')).toBe(40);
+    // 30 objects of 'wide' seen again (same position and redshift) under other ids: 30 twins.
+    const twins = fieldCsv(400)
+      .trimEnd()
+      .split('\n')
+      .slice(1, 31)
+      .map((l) => l.replace(/^P/, 'T'));
+    const s = await loadCatalog(store, {
+      source: tmp.file('b.csv', `${HEADER}\n${twins.join('\n')}\n`),
+      name: 'deep',
+    });
+    // 30 probes × 39 extra runs > 400 target rows: 'wide' is merged into one run first.
+    expect(partCount(store, 'wide')).toBe(1);
+    expect(s.duplicatePairs).toBe(30);
+    const q = { raDeg: 150, decDeg: 2, radiusDeg: 1 };
+    expect(coneSearch(store, q).map((x) => x.objectId)).toEqual(
+      coneSearchBruteForce(store, q).map((x) => x.objectId),
+    );
+  });
+
   it('finds an id repeated in another part, or twice in one pixel of one part, and names every line', async () => {
     const store = tmp.store();
     // Ids repeat at lines 2/402 (different parts, different positions) and the row at line 5 is
