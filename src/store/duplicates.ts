@@ -1,7 +1,7 @@
 import { ARCSEC } from '../math/index.js';
 import { angularSeparationArcsec, coneToRanges } from '../sky/index.js';
 import type { MatchOptions, Store } from './open.js';
-import { catalogRows, inRunPixels, mergeRuns } from './runs.js';
+import { catalogRows, catalogRuns, inRunPixels, mergeRuns } from './runs.js';
 import { STORAGE_ORDER } from './storage-order.js';
 
 interface MatchRow {
@@ -33,10 +33,7 @@ export function redshiftsCompatible(a: MatchRow, b: MatchRow, m: MatchOptions): 
  * transaction and also makes that catalogue's cone searches cheaper afterwards.
  */
 function mergeTargetIfWorthIt(store: Store, targetId: number, probeRows: number, targetRows: number): void {
-  const runs = store.db
-    .prepare<[number], number>('SELECT run FROM galaxy_run WHERE catalog_id = ? ORDER BY run')
-    .pluck()
-    .all(targetId);
+  const runs = catalogRuns(store.db, targetId);
   if (runs.length > 1 && probeRows * (runs.length - 1) > targetRows) mergeRuns(store.db, targetId, runs);
 }
 

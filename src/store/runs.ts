@@ -27,16 +27,50 @@ export function inRun(run: string, g = 'g'): string {
  * key range, so one seek and a forward scan.
  */
 export function inRunPixels(run: string, lo: string, hi: string, g = 'g'): string {
-  return `${g}.gkey BETWEEN ((${run}) << ${RUN_SHIFT}) | ((${lo}) << ${SEQ_BITS})
-    AND ((${run}) << ${RUN_SHIFT}) + (((${hi}) + 1) << ${SEQ_BITS}) - 1`;
+  return `${g}.gkey BETWEEN ${runKeySql(run, `(${lo}) << ${SEQ_BITS}`)}
+    AND ${runKeySql(run, `((${hi}) + 1) << ${SEQ_BITS}`)} - 1`;
 }
 
-/** SQL: the rows g of one catalogue (bound as `param`), as a FROM fragment and a WHERE condition. */
+/**
+ * SQL: the key of a row of run `run` whose pixel part (hpx · 2^18 + seq, below 2^48) is `pixelKey`
+ * (SQL expressions). The run is shifted in SQL: keys pass 2^53, beyond a JavaScript number. The two
+ * parts share no bits, and the bitwise OR also makes a bound double an integer ('+' would keep it a
+ * double and round keys above 2^53).
+ */
+export function runKeySql(run: string, pixelKey: string): string {
+  return `(((${run}) << ${RUN_SHIFT}) | (${pixelKey}))`;
+}
+
+/** The pixel part of a key, hpx · 2^18 + seq: an exact double (< 2^48), bound as a number. */
+export function pixelKey(hpx: number, seq: number): number {
+  return hpx * MAX_PIXEL_ROWS + seq;
+}
+
+/**
+ * SQL: the rows g of one catalogue (bound as `param`), as a FROM fragment and a WHERE condition;
+ * k.run is each row's run.
+ */
 export function catalogRows(param: string, g = 'g'): { from: string; where: string } {
   return {
     from: `galaxy_run k CROSS JOIN galaxy ${g}`,
     where: `k.catalog_id = ${param} AND ${inRun('k.run', g)}`,
   };
+}
+
+/** The same for the runs listed in a JSON array (bound as `param`, e.g. the runs of one load). */
+export function listedRunRows(param: string, g = 'g'): { from: string; where: string } {
+  return {
+    from: `(SELECT value AS run FROM json_each(${param})) k CROSS JOIN galaxy ${g}`,
+    where: inRun('k.run', g),
+  };
+}
+
+/** The runs of a catalogue, ascending. */
+export function catalogRuns(db: Database.Database, catalogId: number): number[] {
+  return db
+    .prepare<[number], number>('SELECT run FROM galaxy_run WHERE catalog_id = ? ORDER BY run')
+    .pluck()
+    .all(catalogId);
 }
 
 /** A free run number for a new part of catalogue `catalogId` (recorded at once). */
@@ -59,17 +93,21 @@ export function allocateRun(db: Database.Database, catalogId: number): number {
   return run;
 }
 
+/** Delete the rows of these runs and free the run numbers (inside the caller's transaction). */
+function dropRuns(db: Database.Database, runs: readonly number[]): number {
+  const del = db.prepare<[{ run: number }]>(`DELETE FROM galaxy WHERE ${inRun('@run', 'galaxy')}`);
+  const free = db.prepare<[{ run: number }]>('DELETE FROM galaxy_run WHERE run = @run');
+  let n = 0;
+  for (const run of runs) {
+    n += del.run({ run }).changes;
+    free.run({ run });
+  }
+  return n;
+}
+
 /** Delete every galaxy row of a catalogue and free its runs (inside the caller's transaction). */
 export function deleteCatalogGalaxies(db: Database.Database, catalogId: number): number {
-  const runs = db
-    .prepare<[number], number>('SELECT run FROM galaxy_run WHERE catalog_id = ?')
-    .pluck()
-    .all(catalogId);
-  const del = db.prepare<[{ run: number }]>(`DELETE FROM galaxy WHERE ${inRun('@run', 'galaxy')}`);
-  let n = 0;
-  for (const run of runs) n += del.run({ run }).changes;
-  db.prepare('DELETE FROM galaxy_run WHERE catalog_id = ?').run(catalogId);
-  return n;
+  return dropRuns(db, catalogRuns(db, catalogId));
 }
 
 /**
@@ -83,22 +121,16 @@ export function mergeRuns(db: Database.Database, catalogId: number, runs: readon
   const cols = GALAXY_STORED_COLUMNS.split(', ')
     .map((c) => `g.${c}`)
     .join(', ');
+  const rows = listedRunRows('@runs');
   // seq: the row's rank within its pixel; capped so that an absurd pile-up (> 2^18 rows at one
   // spot) fails on the primary key instead of spilling into the pixel bits.
+  const seq = `min(row_number() OVER (PARTITION BY g.hpx ORDER BY g.gkey) - 1, ${MAX_PIXEL_ROWS - 1})`;
   db.prepare(
     `INSERT INTO galaxy (gkey, ${GALAXY_STORED_COLUMNS})
-     SELECT (@run << ${RUN_SHIFT}) | (g.hpx << ${SEQ_BITS})
-              | min(row_number() OVER (PARTITION BY g.hpx ORDER BY g.gkey) - 1, ${MAX_PIXEL_ROWS - 1}),
-            ${cols}
-     FROM (SELECT value AS run FROM json_each(@runs)) k CROSS JOIN galaxy g
-     WHERE ${inRun('k.run')}
+     SELECT ${runKeySql('@run', `(g.hpx << ${SEQ_BITS}) + ${seq}`)}, ${cols}
+     FROM ${rows.from} WHERE ${rows.where}
      ORDER BY g.hpx, g.gkey`,
   ).run({ run, runs: JSON.stringify(runs) });
-  const del = db.prepare<[{ run: number }]>(`DELETE FROM galaxy WHERE ${inRun('@run', 'galaxy')}`);
-  const free = db.prepare<[{ run: number }]>('DELETE FROM galaxy_run WHERE run = @run');
-  for (const old of runs) {
-    del.run({ run: old });
-    free.run({ run: old });
-  }
+  dropRuns(db, runs);
   return run;
 }

@@ -1,6 +1,6 @@
 import type { CosmologyModel } from '../../cosmology/index.js';
 import { InputError } from '../../errors.js';
-import type { DelimitedRecord } from '../readers/delimited-records.js';
+import { type DelimitedRecord, recordValues } from '../readers/delimited-records.js';
 import type { ColumnInfo, SourceRow } from '../readers/types.js';
 import { type Field, normaliseName } from './fields.js';
 import { createIdFilter } from './id-filter.js';
@@ -126,13 +126,11 @@ export async function convertFile(
     const delimiter = table.delimited?.delimiter ?? ',';
     const lineCells = new LineCells(delimiter);
     const arrayCells = new ArrayCells();
-    /** The cells of a slice's k-th item (reused objects: read before asking for the next). */
-    const cellsOf = (item: SourceItem): RowCells => {
-      if ('values' in item) return arrayCells.reset(item.values);
-      if (item.text !== undefined) return lineCells.reset(item.text);
-      return arrayCells.reset(item.fields.map((f) => (f === '' ? null : f)));
-    };
-    const positionOf = (item: SourceItem): number => ('values' in item ? item.position : item.line);
+    // Cells come in reused objects: read them before asking for the next item's.
+    const recordCells = (rec: DelimitedRecord): RowCells =>
+      rec.text !== undefined ? lineCells.reset(rec.text) : arrayCells.reset(recordValues(rec, delimiter));
+    const cellsOf = (item: SourceItem): RowCells =>
+      'values' in item ? arrayCells.reset(item.values) : recordCells(item);
     try {
       // The mass unit is guessed from the first rows (up to MASS_GUESS_ROWS), as they come.
       const first: SourceItem[] = [];
@@ -198,7 +196,11 @@ export async function convertFile(
       const convertSlice = async (slice: readonly SourceItem[]): Promise<boolean> => {
         signal?.throwIfAborted();
         for (const item of slice) {
-          if (convert!.cells(cellsOf(item), positionOf(item), good)) ids.add(good.lastId());
+          const kept =
+            'values' in item
+              ? convert!(arrayCells.reset(item.values), item.position, good)
+              : convert!(recordCells(item), item.line, good);
+          if (kept) ids.add(good.lastId());
           rowsRead++;
           if (++readSinceFlush === partRows && (await flush())) return true;
         }

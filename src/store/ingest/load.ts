@@ -4,7 +4,7 @@ import type Database from 'better-sqlite3';
 import { ConflictError, InputError } from '../../errors.js';
 import { matchCatalog, rebuildPhysicalLinks } from '../duplicates.js';
 import type { Store } from '../open.js';
-import { allocateRun, deleteCatalogGalaxies, inRun, inRunPixels, mergeRuns } from '../runs.js';
+import { allocateRun, deleteCatalogGalaxies, inRun, inRunPixels, listedRunRows, mergeRuns } from '../runs.js';
 import { STORAGE_ORDER } from '../storage-order.js';
 import {
   type ConvertEnd,
@@ -157,11 +157,11 @@ export async function loadCatalog(store: Store, options: LoadOptions): Promise<L
 }
 
 /**
- * Rows per part (one run each). Parts are small so the parsing worker and its hand-over stay small in
- * memory (bench/load.ts: 256k-row parts raised peak RSS at 5M rows to 374 MB; 64k-row parts loaded
- * 1M rows ~10 % slower than 32k-row parts) and the last part's write, which nothing overlaps, is short; a load of more than MERGE_ABOVE_RUNS parts is merged into
- * one run before it commits (mergeRuns), so a cone search never seeks in more than that many runs
- * of one catalogue.
+ * Rows per part (one run each). Parts are small so the parsing worker and its hand-over stay small
+ * in memory (bench/load.ts: 256k-row parts raised peak RSS at 5M rows to 374 MB; 64k-row parts
+ * loaded 1M rows ~10 % slower than 32k-row parts) and the last part's write, which nothing
+ * overlaps, is short. A load of more than MERGE_ABOVE_RUNS parts is merged into one run before it
+ * commits (mergeRuns), so a cone search never seeks in more than that many runs of one catalogue.
  */
 const PART_ROWS = 32_768;
 /**
@@ -206,7 +206,7 @@ async function loadLocked(
   };
   const skipInvalid = input.skipInvalid;
 
-  // Parsing starts at once, in a worker thread, while this thread hashes the file and opens the
+  // Parsing (and hashing the file) starts at once, in a worker thread, while this thread opens the
   // write transaction; parts wait (the worker is at most two ahead) until the catalogue row exists.
   let target: { catalogId: number; runs: number[] } | undefined;
   let opened!: () => void;
@@ -335,13 +335,13 @@ async function loadLocked(
     };
     addWarnings(warnings, end.counts);
 
-    // Ids must be unique within the file (and so within the catalogue, since an append replaces
-    // rows by id): the parsing side named the candidates, settled here against the stored rows.
     // Many parts: one merged run, so cone searches of this catalogue stay a few range scans.
     if (target.runs.length > (options.mergeAboveRuns ?? MERGE_ABOVE_RUNS)) {
       target.runs = [mergeRuns(db, catalogId, target.runs)];
     }
     const runs = JSON.stringify(target.runs);
+    // Ids must be unique within the file (and so within the catalogue, since an append replaces
+    // rows by id): the parsing side named the candidates, settled here against the stored rows.
     const repeats = repeatedIds(db, runs, end);
     const duplicateIds = repeats.slice(0, 100).map((d) => ({ objectId: d.objectId, positions: d.positions }));
     let removedAsDuplicates = 0;
@@ -369,7 +369,7 @@ async function loadLocked(
            SELECT g.gkey FROM galaxy_run k CROSS JOIN galaxy g
            WHERE k.catalog_id = @catalogId AND k.run NOT IN (SELECT value FROM json_each(@runs))
              AND ${inRun('k.run')}
-             AND g.object_id IN (SELECT n.object_id FROM ${NEW_ROWS} n WHERE ${inRun('r.run', 'n')}))`,
+             AND g.object_id IN (SELECT n.object_id FROM ${NEW_ROWS.from} WHERE ${NEW_ROWS.where}))`,
       ).run({ catalogId, runs });
       // Runs left empty are freed (run numbers are a finite resource).
       db.prepare(
@@ -443,8 +443,8 @@ interface RepeatedId {
   occurrences: Occurrence[];
 }
 
-/** SQL: the rows n of this load's runs (bound as the JSON array @runs), with their run r.run. */
-const NEW_ROWS = '(SELECT value AS run FROM json_each(@runs)) r CROSS JOIN galaxy';
+/** SQL: the rows n of this load's runs (bound as the JSON array @runs). */
+const NEW_ROWS = listedRunRows('@runs', 'n');
 
 /** Ids of this load (its runs, a JSON array) that occur more than once, with every occurrence. */
 function repeatedIds(db: Database.Database, runs: string, end: ConvertEnd): RepeatedId[] {
@@ -458,17 +458,17 @@ function repeatedIds(db: Database.Database, runs: string, end: ConvertEnd): Repe
     const rows = end.idCheckAll
       ? db
           .prepare(
-            `SELECT n.object_id, n.run, n.hpx, n.source_position FROM ${NEW_ROWS} n
-             WHERE ${inRun('r.run', 'n')} AND n.object_id IN (
-               SELECT n.object_id FROM ${NEW_ROWS} n WHERE ${inRun('r.run', 'n')}
+            `SELECT n.object_id, n.run, n.hpx, n.source_position FROM ${NEW_ROWS.from}
+             WHERE ${NEW_ROWS.where} AND n.object_id IN (
+               SELECT n.object_id FROM ${NEW_ROWS.from} WHERE ${NEW_ROWS.where}
                GROUP BY n.object_id HAVING COUNT(*) > 1)`,
           )
           .raw(true)
           .all({ runs })
       : db
           .prepare(
-            `SELECT n.object_id, n.run, n.hpx, n.source_position FROM ${NEW_ROWS} n
-             WHERE ${inRun('r.run', 'n')} AND n.object_id IN (SELECT value FROM json_each(@candidates))`,
+            `SELECT n.object_id, n.run, n.hpx, n.source_position FROM ${NEW_ROWS.from}
+             WHERE ${NEW_ROWS.where} AND n.object_id IN (SELECT value FROM json_each(@candidates))`,
           )
           .raw(true)
           .all({ runs, candidates: JSON.stringify(end.idCandidates) });

@@ -1,7 +1,7 @@
 import type Database from 'better-sqlite3';
 import { InputError } from '../../errors.js';
 import { pixelSizeRad } from '../../sky/healpix-order.js';
-import { MAX_PIXEL_ROWS, RUN_SHIFT } from '../runs.js';
+import { MAX_PIXEL_ROWS, pixelKey, runKeySql } from '../runs.js';
 import { STORAGE_ORDER } from '../storage-order.js';
 import {
   codeAt,
@@ -100,9 +100,8 @@ export function createPartWriter(db: Database.Database) {
     const key = `${shared.join('|')}:${rows}`;
     let stmt = statements.get(key);
     if (!stmt) {
-      // gkey = run · 2^48 + (hpx · 2^18 + seq): the bound part is an exact double (< 2^48), the
-      // run is shifted in SQL (keys pass 2^53, beyond a JavaScript number).
-      const one = `(@catalogId, ${shared.map((l, c) => (c === 0 ? `(@run << ${RUN_SHIFT}) | ?` : (l ?? '?'))).join(', ')})`;
+      // The key's pixel part is bound (pixelKey), the run added in SQL (runs.ts).
+      const one = `(@catalogId, ${shared.map((l, c) => (c === 0 ? runKeySql('@run', '?') : (l ?? '?'))).join(', ')})`;
       stmt = db.prepare(
         `INSERT INTO galaxy (catalog_id, ${COLUMNS.map(([name]) => name).join(', ')})
          VALUES ${Array.from({ length: rows }, () => one).join(', ')}`,
@@ -133,9 +132,8 @@ export function createPartWriter(db: Database.Database) {
           let v = j;
           // A NaN binds as SQL NULL (see StagedBatch).
           if (kind === 'key')
-            // hpx · 2^18 + seq, seq = the row's rank within its pixel: keys grow row by row.
-            for (let r = 0; r < rows; r++, v += width)
-              values[v] = n[start + r] * MAX_PIXEL_ROWS + seq[start + r];
+            // seq = the row's rank within its pixel: keys grow row by row.
+            for (let r = 0; r < rows; r++, v += width) values[v] = pixelKey(n[start + r], seq[start + r]);
           else if (kind === 'n')
             for (let r = 0; r < rows; r++, v += width) values[v] = n[k * stride + start + r];
           else if (kind === 'id') for (let r = 0; r < rows; r++, v += width) values[v] = idAt(b, start + r);

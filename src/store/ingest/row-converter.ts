@@ -1,6 +1,6 @@
 import { nsideOf } from '../../sky/healpix-order.js';
 import { ang2pixNestUnchecked } from '../../sky/healpix-pixel.js';
-import type { CellValue, ColumnInfo, SourceRow } from '../readers/types.js';
+import type { CellValue, ColumnInfo } from '../readers/types.js';
 import { STORAGE_ORDER } from '../storage-order.js';
 import { show, whyNotFinite } from './cells.js';
 import type { Field } from './fields.js';
@@ -119,20 +119,13 @@ const STORAGE_NSIDE = nsideOf(STORAGE_ORDER);
 /** Sentinel for "cell had a problem" (distinct from null = empty cell). */
 const BAD = Symbol('bad');
 
-/** Checks and converts one source row: null when the row has problems (they go to the log). */
-export interface RowConverter {
-  (row: SourceRow): StagedRow | null;
-  /**
-   * The same for a row given as cells (see row-cells.ts) and its line/row number: a good row goes
-   * to `target` (true), a bad one to the problem log (false).
-   */
-  cells(cells: RowCells, position: number, target: RowTarget): boolean;
-}
-
 /**
- * Build the function that checks and converts one source row (null when the row has problems). The
- * returned array is reused for the next row: copy it before converting another.
+ * Checks and converts one source row, given as cells (see row-cells.ts) with its line/row number: a
+ * good row goes to `target` (true), a bad one to the problem log (false).
  */
+export type RowConverter = (cells: RowCells, position: number, target: RowTarget) => boolean;
+
+/** Build the row converter for one file's columns, mapping, units and defaults. */
 export function createRowConverter(ctx: ConverterContext): RowConverter {
   const { mapping, columns, positionKind, defaults, problems, counts } = ctx;
   const at = (f: Field) => mapping.index[f] ?? -1;
@@ -422,34 +415,5 @@ export function createRowConverter(ctx: ConverterContext): RowConverter {
     );
     return true;
   };
-  // The array form fills one StagedRow, reused for every row: copy it before converting another.
-  const out = [
-    0,
-    '',
-    0,
-    0,
-    0,
-    null,
-    'spec',
-    null,
-    null,
-    0,
-    null,
-    null,
-    null,
-    null,
-    null,
-    null,
-    0,
-  ] as StagedRow;
-  const intoOut: RowTarget = {
-    add(...row) {
-      for (let k = 0; k < row.length; k++) (out as unknown[])[k] = row[k];
-    },
-  };
-  const arrayCells = new ArrayCells();
-  const converter = (row: SourceRow) =>
-    convertCells(arrayCells.reset(row.values), row.position, intoOut) ? out : null;
-  converter.cells = convertCells;
-  return converter;
+  return convertCells;
 }

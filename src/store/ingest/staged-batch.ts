@@ -66,25 +66,7 @@ const orNaN = (x: number | null) => (x === null ? Number.NaN : x);
  * StagedRow (numbers stay unboxed on the way into a batch's typed arrays).
  */
 export interface RowTarget {
-  add(
-    hpx: number,
-    objectId: string,
-    raDeg: number,
-    decDeg: number,
-    z: number,
-    zErr: number | null,
-    zKind: ZKind,
-    logMstar: number | null,
-    logMstarErr: number | null,
-    massEstimated: 0 | 1,
-    gMag: number | null,
-    iMag: number | null,
-    logMhalo: number | null,
-    mhaloDef: MhaloDef | null,
-    logMhaloErr: number | null,
-    groupId: string | null,
-    position: number,
-  ): void;
+  add(...row: StagedRow): void;
 }
 
 /** Collects rows into one StagedBatch of at most `capacity` rows. */
@@ -102,25 +84,25 @@ export function createBatchBuilder(capacity: number) {
     lastId(): string {
       return ids[ids.length - 1];
     },
-    add(
-      hpx: number,
-      objectId: string,
-      raDeg: number,
-      decDeg: number,
-      z: number,
-      zErr: number | null,
-      zKind: ZKind,
-      logMstar: number | null,
-      logMstarErr: number | null,
-      massEstimated: 0 | 1,
-      gMag: number | null,
-      iMag: number | null,
-      logMhalo: number | null,
-      mhaloDef: MhaloDef | null,
-      logMhaloErr: number | null,
-      groupId: string | null,
-      position: number,
-    ): void {
+    add: ((
+      hpx,
+      objectId,
+      raDeg,
+      decDeg,
+      z,
+      zErr,
+      zKind,
+      logMstar,
+      logMstarErr,
+      massEstimated,
+      gMag,
+      iMag,
+      logMhalo,
+      mhaloDef,
+      logMhaloErr,
+      groupId,
+      position,
+    ) => {
       const i = ids.length;
       if (i === capacity) throw new Error('internal: staged batch is full');
       const c = capacity;
@@ -142,27 +124,9 @@ export function createBatchBuilder(capacity: number) {
       ids.push(objectId);
       groupIds.push(groupId);
       if (groupId !== null) anyGroup = true;
-    },
+    }) satisfies RowTarget['add'],
     push(r: StagedRow): void {
-      builder.add(
-        r[0],
-        r[1],
-        r[2],
-        r[3],
-        r[4],
-        r[5],
-        r[6],
-        r[7],
-        r[8],
-        r[9],
-        r[10],
-        r[11],
-        r[12],
-        r[13],
-        r[14],
-        r[15],
-        r[16],
-      );
+      builder.add(...r);
     },
     /** The rows so far as a batch (it owns the buffers); the builder starts a new batch. */
     take(): StagedBatch {

@@ -1,14 +1,8 @@
 import { createReadStream } from 'node:fs';
 import type { Readable } from 'node:stream';
 import { StringDecoder } from 'node:string_decoder';
-import { type DelimitedRecord, delimitedRecords, recordFields } from './delimited-records.js';
-import {
-  type CellValue,
-  type ColumnInfo,
-  FileFormatError,
-  type SourceRow,
-  type SourceTable,
-} from './types.js';
+import { type DelimitedRecord, delimitedRecords, recordFields, recordValues } from './delimited-records.js';
+import { type ColumnInfo, FileFormatError, type SourceRow, type SourceTable } from './types.js';
 
 export interface DelimitedOptions {
   /** Field separator; default ',' for CSV and a tab for TSV (format 'tsv' or a .tsv/.tab name). */
@@ -121,9 +115,7 @@ export async function openDelimited(
     try {
       const take = function* (recs: DelimitedRecord[]): Generator<SourceRow[]> {
         for (const rec of recs) {
-          const values: CellValue[] = recordFields(rec, delimiter);
-          for (let i = 0; i < values.length; i++) if (values[i] === '') values[i] = null;
-          batch.push({ position: rec.line, values });
+          batch.push({ position: rec.line, values: recordValues(rec, delimiter) });
           if (batch.length >= batchSize) {
             yield batch;
             batch = [];

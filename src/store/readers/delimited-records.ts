@@ -15,6 +15,13 @@ export function recordFields(record: DelimitedRecord, delimiter: string): string
   return record.fields ?? record.text.split(delimiter);
 }
 
+/** The fields of a record as cell values: an empty field is null (as every reader gives it). */
+export function recordValues(record: DelimitedRecord, delimiter: string): (string | null)[] {
+  const values: (string | null)[] = recordFields(record, delimiter);
+  for (let i = 0; i < values.length; i++) if (values[i] === '') values[i] = null;
+  return values;
+}
+
 function countQuotes(s: string): number {
   let n = 0;
   for (let i = s.indexOf('"'); i !== -1; i = s.indexOf('"', i + 1)) n++;
