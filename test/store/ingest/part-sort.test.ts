@@ -10,10 +10,7 @@ import {
   NUMBER_COLUMNS,
   numberAt,
 } from '../../../src/store/ingest/staged-batch.js';
-
-function row(hpx: number, id: string, position: number): StagedRow {
-  return [hpx, id, 10, 20, 0.1, 0.01, 'photo', 10, 0.1, 0, null, null, null, null, null, null, position];
-}
+import { photoRow } from './staged-rows.js';
 
 function batchOf(rows: StagedRow[]) {
   const b = createBatchBuilder(rows.length);
@@ -32,7 +29,13 @@ function stored(part: ReturnType<typeof sortPart>['part']): [number, string, num
 
 describe('sortPart', () => {
   it('orders a part by HEALPix index, then id (the key order), moving every column with its row', () => {
-    const rows = [row(900, 'b', 2), row(5, 'z', 3), row(900, 'a', 4), row(805306367, 'q', 5), row(0, 'm', 6)];
+    const rows = [
+      photoRow(900, 'b', 2),
+      photoRow(5, 'z', 3),
+      photoRow(900, 'a', 4),
+      photoRow(805306367, 'q', 5),
+      photoRow(0, 'm', 6),
+    ];
     const batch = batchOf(rows);
     const { part, removed } = sortPart(batch);
     expect(removed).toEqual([]);
@@ -55,7 +58,13 @@ describe('sortPart', () => {
   });
 
   it('leaves out a row that repeats the pixel and id of an earlier row, keeping the first by position', () => {
-    const rows = [row(7, 'x', 10), row(3, 'y', 11), row(7, 'x', 12), row(7, 'x', 13), row(8, 'x', 14)];
+    const rows = [
+      photoRow(7, 'x', 10),
+      photoRow(3, 'y', 11),
+      photoRow(7, 'x', 12),
+      photoRow(7, 'x', 13),
+      photoRow(8, 'x', 14),
+    ];
     const { part, removed } = sortPart(batchOf(rows));
     expect(stored(part)).toEqual([
       [3, 'y', 11],
@@ -75,7 +84,7 @@ describe('sortPart', () => {
       return s / 2 ** 32;
     };
     const rows = Array.from({ length: 20_000 }, (_, i) =>
-      row(Math.floor(rnd() * 3000), `g${Math.floor(rnd() * 1e6)}`, i + 2),
+      photoRow(Math.floor(rnd() * 3000), `g${Math.floor(rnd() * 1e6)}`, i + 2),
     );
     const expected = rows
       .map((r) => [r[0], r[1], r[16]] as [number, string, number])

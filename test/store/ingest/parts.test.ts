@@ -29,8 +29,31 @@ function fieldCsv(n: number, idOf: (i: number) => string = (i) => `P${i}`): stri
   return `${HEADER}\n${lines.join('\n')}\n`;
 }
 
+type TestStore = ReturnType<ReturnType<typeof useTmp>['store']>;
+
+/** Each cone answered exactly as a full scan answers it; returns the ids found per cone. */
+function expectConesAsFullScan(store: TestStore, cones: number[][], zMax?: number): string[][] {
+  return cones.map(([raDeg, decDeg, radiusDeg]) => {
+    const q = { raDeg, decDeg, radiusDeg, zMax };
+    const fast = coneSearch(store, q).map((x) => x.objectId);
+    expect(fast).toEqual(coneSearchBruteForce(store, q).map((x) => x.objectId));
+    return fast;
+  });
+}
+
+/** The pixel read back from each key (a virtual column) is the pixel of the stored position. */
+function expectKeyPixels(store: TestStore, where = '1'): number {
+  const rows = store.db.prepare(`SELECT hpx, ra_deg, dec_deg FROM galaxy WHERE ${where}`).all() as {
+    hpx: number;
+    ra_deg: number;
+    dec_deg: number;
+  }[];
+  for (const r of rows) expect(r.hpx).toBe(ang2pixNest(STORAGE_ORDER, r.ra_deg, r.dec_deg));
+  return rows.length;
+}
+
 /** Runs (sorted parts) a catalogue is stored in. */
-function partCount(store: ReturnType<ReturnType<typeof useTmp>['store']>, name: string): number {
+function partCount(store: TestStore, name: string): number {
   return store.db
     .prepare('SELECT COUNT(*) FROM galaxy_run r JOIN catalog c USING (catalog_id) WHERE c.name = ?')
     .pluck()
@@ -49,17 +72,13 @@ describe('a catalogue stored in several parts', () => {
     });
     expect(s.rows).toBe(500);
     expect(partCount(store, 'field')).toBe(Math.ceil(500 / 37));
-    for (const [ra, dec, r] of [
+    const cones = [
       [150, 2, 0.05],
       [150.1, 1.9, 0.12],
       [149.85, 2.15, 0.3],
       [150, 2, 2],
-    ]) {
-      const q = { raDeg: ra, decDeg: dec, radiusDeg: r, zMax: 0.5 };
-      const fast = coneSearch(store, q).map((x) => x.objectId);
-      expect(fast).toEqual(coneSearchBruteForce(store, q).map((x) => x.objectId));
-      expect(fast.length).toBeGreaterThan(0);
-    }
+    ];
+    for (const found of expectConesAsFullScan(store, cones, 0.5)) expect(found.length).toBeGreaterThan(0);
   });
 
   it('keeps keys exact past 2^53 (run numbers ≥ 32) and frees run numbers with their catalogue', async () => {
@@ -71,25 +90,12 @@ describe('a catalogue stored in several parts', () => {
       mergeAboveRuns: 100,
     });
     expect(partCount(store, 'many')).toBe(40);
-    // hpx is read back from the key (a virtual column): it must equal the pixel of the stored position.
-    const rows = store.db.prepare('SELECT run, hpx, ra_deg, dec_deg FROM galaxy WHERE run >= 32').all() as {
-      run: number;
-      hpx: number;
-      ra_deg: number;
-      dec_deg: number;
-    }[];
-    expect(rows.length).toBe(80);
-    for (const r of rows) expect(r.hpx).toBe(ang2pixNest(STORAGE_ORDER, r.ra_deg, r.dec_deg));
-    for (const [ra, dec, radius] of [
+    expect(expectKeyPixels(store, 'run >= 32')).toBe(80);
+    expectConesAsFullScan(store, [
       [150, 2, 0.05],
       [150.1, 1.9, 0.12],
       [150, 2, 2],
-    ]) {
-      const q = { raDeg: ra, decDeg: dec, radiusDeg: radius };
-      expect(coneSearch(store, q).map((x) => x.objectId)).toEqual(
-        coneSearchBruteForce(store, q).map((x) => x.objectId),
-      );
-    }
+    ]);
     dropCatalog(store, 'many');
     expect(store.db.prepare('SELECT COUNT(*) FROM galaxy_run').pluck().get()).toBe(0);
     expect(store.db.prepare('SELECT COUNT(*) FROM galaxy').pluck().get()).toBe(0);
@@ -110,23 +116,12 @@ describe('a catalogue stored in several parts', () => {
     });
     expect(s.rows).toBe(430);
     expect(partCount(store, 'merged')).toBe(1);
-    const rows = store.db.prepare('SELECT hpx, ra_deg, dec_deg FROM galaxy').all() as {
-      hpx: number;
-      ra_deg: number;
-      dec_deg: number;
-    }[];
-    expect(rows).toHaveLength(430);
-    for (const r of rows) expect(r.hpx).toBe(ang2pixNest(STORAGE_ORDER, r.ra_deg, r.dec_deg));
-    for (const [ra, dec, radius] of [
+    expect(expectKeyPixels(store)).toBe(430);
+    expectConesAsFullScan(store, [
       [150, 2, 0.01],
       [150.1, 1.9, 0.12],
       [150, 2, 2],
-    ]) {
-      const q = { raDeg: ra, decDeg: dec, radiusDeg: radius };
-      expect(coneSearch(store, q).map((x) => x.objectId)).toEqual(
-        coneSearchBruteForce(store, q).map((x) => x.objectId),
-      );
-    }
+    ]);
     expect(
       coneSearch(store, { raDeg: 150, decDeg: 2, radiusDeg: 0.001 }).filter((r) =>
         r.objectId.startsWith('S'),
@@ -158,10 +153,7 @@ describe('a catalogue stored in several parts', () => {
     // 30 probes × 39 extra runs > 400 target rows: 'wide' is merged into one run first.
     expect(partCount(store, 'wide')).toBe(1);
     expect(s.duplicatePairs).toBe(30);
-    const q = { raDeg: 150, decDeg: 2, radiusDeg: 1 };
-    expect(coneSearch(store, q).map((x) => x.objectId)).toEqual(
-      coneSearchBruteForce(store, q).map((x) => x.objectId),
-    );
+    expectConesAsFullScan(store, [[150, 2, 1]]);
   });
 
   it('finds an id repeated in another part, or twice in one pixel of one part, and names every line', async () => {

@@ -3,6 +3,7 @@ import { createPartWriter } from '../../../src/store/ingest/part-writer.js';
 import type { StagedRow } from '../../../src/store/ingest/row-converter.js';
 import { createBatchBuilder } from '../../../src/store/ingest/staged-batch.js';
 import { useTmp } from '../tmp.js';
+import { photoRow } from './staged-rows.js';
 
 describe('staged batches', () => {
   const tmp = useTmp();
@@ -55,25 +56,7 @@ describe('staged batches', () => {
 
   it('refuse a row beyond their capacity', () => {
     const builder = createBatchBuilder(1);
-    const row: StagedRow = [
-      1,
-      'x',
-      1,
-      1,
-      0.1,
-      null,
-      'spec',
-      10,
-      null,
-      0,
-      null,
-      null,
-      null,
-      null,
-      null,
-      null,
-      2,
-    ];
+    const row = photoRow(1, 'x', 2);
     builder.push(row);
     expect(() => builder.push(row)).toThrow(/full/);
   });
@@ -81,26 +64,7 @@ describe('staged batches', () => {
   it('refuses a part with more than 2^18 − 1 rows in one storage pixel, naming it, before writing anything', () => {
     const n = 2 ** 18 + 1;
     const builder = createBatchBuilder(n);
-    for (let i = 0; i < n; i++)
-      builder.add(
-        4242,
-        `P${i}`,
-        1,
-        1,
-        0.1,
-        0.01,
-        'photo',
-        10,
-        0.1,
-        0,
-        null,
-        null,
-        null,
-        null,
-        null,
-        null,
-        i + 2,
-      );
+    for (let i = 0; i < n; i++) builder.push(photoRow(4242, `P${i}`, i + 2));
     const store = tmp.store();
     expect(() => createPartWriter(store.db).write(1, 0, builder.take())).toThrow(
       /more than 262143 rows fall in one 25\.8″ HEALPix pixel \(nested index 4242 at order 13\)/,
