@@ -46,8 +46,9 @@ function scanStatement(
            OR (g.log_mstar IS NULL AND g.log_mhalo IS NULL)${linked ? ' OR p.physical_key IS NOT NULL' : ''})`
       : '';
     // CROSS JOIN keeps runs and ranges as the outer loops: one key seek per run and pixel range,
-    // then a contiguous scan of the table (rows are keyed by run and pixel, see runs.ts); the z, Dec (and, for a catalogue without links,
-    // mass) terms are tested on each row before any join. Without links there is no join at all.
+    // then a contiguous scan of the table (rows are keyed by run and pixel, see runs.ts); the z,
+    // Dec (and, for a catalogue without links, mass) terms are tested on each row before any join.
+    // Without links there is no join at all.
     const link = linked
       ? 'LEFT JOIN physical_link p ON p.catalog_id = g.catalog_id AND p.object_id = g.object_id'
       : '';

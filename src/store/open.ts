@@ -61,12 +61,13 @@ export function openStore(path: string, options: OpenStoreOptions = {}): Store {
       if (db.pragma('page_count', { simple: true }) === 0) db.pragma('page_size = 16384');
       db.pragma('journal_mode = WAL');
       db.pragma('synchronous = NORMAL');
-      // Staging tables for loads live in the temp database; keep them on disk so memory stays flat.
+      // The sorter of a large load's merge (runs.ts mergeRuns) and of duplicate-id GROUP BYs spills
+      // to temporary files, not memory, so memory stays flat however large the load.
       db.pragma('temp_store = FILE');
-      // 32 MiB page caches: the final HEALPix-ordered copy of a large load stays in memory.
+      // 32 MiB page caches (they also bound the sorter's memory before it spills).
       db.pragma('cache_size = -32768');
       db.pragma('temp.cache_size = -32768');
-      // Let SQLite's sorter use a helper thread for the ORDER BY / GROUP BY of a large load.
+      // Let SQLite's sorter use a helper thread for that merge and those GROUP BYs.
       db.pragma('threads = 2');
       applyMigrations(db, readMigrations());
     }

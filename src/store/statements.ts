@@ -17,7 +17,8 @@ export interface CatalogSqlRow {
   report_json: string;
 }
 
-const FROM_GALAXY = `FROM galaxy g JOIN catalog c ON c.catalog_id = g.catalog_id
+/** The catalogue (c) and duplicate link (p) of a galaxy row g, for GALAXY_COLUMNS. */
+const GALAXY_JOINS = `JOIN catalog c ON c.catalog_id = g.catalog_id
   LEFT JOIN physical_link p ON p.catalog_id = g.catalog_id AND p.object_id = g.object_id`;
 
 /** Every statement the store runs more than once, prepared when the store opens. */
@@ -41,13 +42,12 @@ export function prepareStatements(db: Database.Database) {
     >(`INSERT INTO catalog (name, description, source_file, source_sha256, format, row_count, rows_skipped,
         loaded_at, mapping_json, report_json) VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?)`),
     galaxiesOfCatalog: db.prepare<[{ catalogId: number; zMax: number }], GalaxySqlRow>(
-      `SELECT ${GALAXY_COLUMNS} FROM ${ofCatalog.from} JOIN catalog c ON c.catalog_id = g.catalog_id
-         LEFT JOIN physical_link p ON p.catalog_id = g.catalog_id AND p.object_id = g.object_id
+      `SELECT ${GALAXY_COLUMNS} FROM ${ofCatalog.from} ${GALAXY_JOINS}
        WHERE ${ofCatalog.where} AND g.z <= @zMax`,
     ),
     /** Rows that carry a halo mass (group rows), by id: uses the partial index galaxy_halo_row. */
     haloRowById: db.prepare<[string], GalaxySqlRow>(
-      `SELECT ${GALAXY_COLUMNS} ${FROM_GALAXY} WHERE g.object_id = ? AND g.log_mhalo IS NOT NULL`,
+      `SELECT ${GALAXY_COLUMNS} FROM galaxy g ${GALAXY_JOINS} WHERE g.object_id = ? AND g.log_mhalo IS NOT NULL`,
     ),
     zKindCounts: db.prepare<[{ catalogId: number }], { z_kind: string; n: number; estimated: number }>(
       `SELECT g.z_kind, COUNT(*) AS n, SUM(g.mass_estimated) AS estimated FROM ${ofCatalog.from}
